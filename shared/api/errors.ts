@@ -1,0 +1,28 @@
+/** Every error code the API can answer with; the body is always ApiErrorBody. */
+export type ApiErrorCode =
+  | 'bad_request'
+  | 'validation_failed'
+  | 'unauthenticated'
+  | 'token_expired'
+  | 'forbidden'
+  | 'not_found'
+  | 'scan_not_found'
+  | 'station_not_found'
+  | 'chart_form_not_found'
+  | 'duplicate_scan'
+  | 'unsupported_file_type'
+  | 'file_too_large'
+  | 'corrupt_image'
+  | 'registration_failed'
+  | 'version_conflict'
+  | 'conflict'
+  | 'internal_error';
+
+export interface ApiErrorBody {
+  error: {
+    code: ApiErrorCode;
+    message: string;
+    /** Field-level problems, keyed by a dotted path such as `pins.2.pressure`. */
+    details?: Record<string, string> | unknown;
+  };
+}
