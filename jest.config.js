@@ -1,0 +1,50 @@
+// One jest run, four projects. scripts/test.ts runs them one after another so the output shows each suite's count.
+const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
+const sharedAlias = { '^@shared/(.*)$': '<rootDir>/shared/$1' };
+
+/** @type {import('jest').Config} */
+module.exports = {
+  projects: [
+    {
+      displayName: 'unit',
+      testEnvironment: 'node',
+      rootDir: __dirname,
+      roots: ['<rootDir>/shared', '<rootDir>/server', '<rootDir>/scripts', '<rootDir>/fixtures'],
+      testMatch: ['**/*.spec.ts'],
+      transform: { '^.+\\.ts$': swc },
+      moduleNameMapper: sharedAlias,
+    },
+    {
+      displayName: 'client',
+      rootDir: __dirname,
+      roots: ['<rootDir>/client/src'],
+      preset: 'jest-preset-angular',
+      setupFilesAfterEnv: ['<rootDir>/client/src/test-setup.ts'],
+      testMatch: ['**/*.spec.ts'],
+      moduleNameMapper: sharedAlias,
+      transform: {
+        '^.+\\.(ts|js|mjs|html|svg)$': ['jest-preset-angular', { tsconfig: '<rootDir>/client/tsconfig.spec.json', stringifyContentPathRegex: '\\.(html|svg)$' }],
+      },
+      transformIgnorePatterns: ['node_modules/(?!.*\\.mjs$)'],
+    },
+    {
+      displayName: 'api',
+      testEnvironment: 'node',
+      rootDir: __dirname,
+      roots: ['<rootDir>/test/api'],
+      testMatch: ['**/*.api.spec.ts'],
+      transform: { '^.+\\.ts$': swc },
+      moduleNameMapper: sharedAlias,
+      globalSetup: '<rootDir>/test/setup/api-global-setup.ts',
+    },
+    {
+      displayName: 'e2e',
+      testEnvironment: 'node',
+      rootDir: __dirname,
+      roots: ['<rootDir>/test/e2e'],
+      testMatch: ['**/*.e2e.spec.ts'],
+      transform: { '^.+\\.ts$': swc },
+      moduleNameMapper: sharedAlias,
+    },
+  ],
+};

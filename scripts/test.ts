@@ -1,0 +1,110 @@
+/**
+ * `npm test`: starts a throwaway PostgreSQL on a free loopback port, runs every suite one after another
+ * (unit, client, api, e2e), prints each suite's counts, and removes the cluster whatever happened.
+ * `npx tsx scripts/test.ts api e2e` runs only the named suites.
+ */
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { ensureChromium } from './lib/chromium';
+import { ensureClientBuild } from './lib/client-build';
+import { findFreePort } from './lib/free-port';
+import { LocalPostgres } from './lib/local-postgres';
+import { runCommand } from './lib/run-command';
+
+const ROOT = resolve(__dirname, '..');
+const SUITES = ['unit', 'client', 'api', 'e2e'] as const;
+type Suite = (typeof SUITES)[number];
+
+interface SuiteResult {
+  suite: Suite;
+  passed: number;
+  failed: number;
+  total: number;
+  exitCode: number;
+  seconds: number;
+}
+
+function pickSuites(args: string[]): Suite[] {
+  if (args.length === 0) return [...SUITES];
+  const unknown = args.filter((a) => !(SUITES as readonly string[]).includes(a));
+  if (unknown.length > 0) throw new Error(`unknown suite(s) ${unknown.join(', ')}; choose from ${SUITES.join(', ')}`);
+  return args as Suite[];
+}
+
+async function runSuite(suite: Suite, env: NodeJS.ProcessEnv, workDir: string): Promise<SuiteResult> {
+  const started = Date.now();
+  const report = join(workDir, `${suite}.json`);
+  const inBand = suite === 'api' || suite === 'e2e';
+  const args = ['--selectProjects', suite, '--json', `--outputFile=${report}`, '--ci'];
+  if (inBand) args.push('--runInBand');
+  else args.push('--maxWorkers=2');
+  console.log(`\n━━ ${suite} suite ━━`);
+  const exitCode = await runCommand(join(ROOT, 'node_modules', '.bin', 'jest'), args, { cwd: ROOT, env });
+  let passed = 0;
+  let failed = 0;
+  let total = 0;
+  try {
+    const json = JSON.parse(readFileSync(report, 'utf8')) as { numPassedTests: number; numFailedTests: number; numTotalTests: number; numRuntimeErrorTestSuites: number };
+    passed = json.numPassedTests;
+    failed = json.numFailedTests + json.numRuntimeErrorTestSuites;
+    total = json.numTotalTests;
+  } catch {
+    // No report means jest itself failed before running anything; the exit code says so below.
+    failed = 1;
+  }
+  return { suite, passed, failed, total, exitCode, seconds: (Date.now() - started) / 1000 };
+}
+
+async function main(): Promise<number> {
+  const suites = pickSuites(process.argv.slice(2));
+  const workDir = mkdtempSync(join(tmpdir(), 'isallo-test-'));
+  // PostgreSQL runs as its own account when we are root, so it must be able to enter the folder.
+  chmodSync(workDir, 0o755);
+  const needsDb = suites.includes('api') || suites.includes('e2e');
+  const postgres = needsDb ? new LocalPostgres(join(workDir, 'pg'), await findFreePort()) : null;
+  const stopAll = async () => {
+    await postgres?.stop();
+    rmSync(workDir, { recursive: true, force: true });
+  };
+  process.once('SIGINT', () => void stopAll().then(() => process.exit(130)));
+  process.once('SIGTERM', () => void stopAll().then(() => process.exit(143)));
+
+  const results: SuiteResult[] = [];
+  try {
+    const env: NodeJS.ProcessEnv = { ...process.env, ISALLO_TEST_WORK_DIR: workDir, TZ: 'UTC' };
+    delete env['DATABASE_URL'];
+    if (postgres) {
+      await postgres.start();
+      await postgres.ensureDatabase('isallo_api');
+      await postgres.ensureDatabase('isallo_e2e');
+      env['DATABASE_URL'] = postgres.url('isallo_api');
+      env['E2E_DATABASE_URL'] = postgres.url('isallo_e2e');
+    }
+    if (suites.includes('e2e')) {
+      env['CHROMIUM_PATH'] = await ensureChromium();
+      env['CLIENT_DIR'] = await ensureClientBuild(ROOT);
+    }
+    for (const suite of suites) results.push(await runSuite(suite, env, workDir));
+  } finally {
+    await stopAll();
+  }
+
+  console.log('\nSuite      passed  failed  total   seconds');
+  for (const r of results) {
+    console.log(`${r.suite.padEnd(10)} ${String(r.passed).padStart(6)}  ${String(r.failed).padStart(6)}  ${String(r.total).padStart(5)}   ${r.seconds.toFixed(1).padStart(7)}`);
+  }
+  const passed = results.reduce((n, r) => n + r.passed, 0);
+  const failed = results.reduce((n, r) => n + r.failed, 0);
+  const isGreen = results.every((r) => r.exitCode === 0) && failed === 0 && passed > 0;
+  console.log(`\n${passed} passed, ${failed} failed`);
+  return isGreen ? 0 : 1;
+}
+
+main().then(
+  (code) => process.exit(code),
+  (error: unknown) => {
+    console.error(error instanceof Error ? error.message : error);
+    process.exit(1);
+  },
+);
