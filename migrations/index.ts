@@ -1,0 +1,27 @@
+import type { Migration } from 'kysely';
+import * as createPerson from './2026_12_02_0100_create_person';
+import * as createPersonRole from './2026_12_02_0110_create_person_role';
+import * as createStation from './2026_12_02_0120_create_station';
+import * as createChartForm from './2026_12_02_0130_create_chart_form';
+import * as createScan from './2026_12_02_0140_create_scan';
+import * as createPinSet from './2026_12_02_0150_create_pin_set';
+import * as createInkLine from './2026_12_02_0160_create_ink_line';
+import * as createSeriesPoint from './2026_12_02_0170_create_series_point';
+import * as createDemoSeed from './2026_12_02_0180_create_demo_seed';
+
+/**
+ * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
+ * tsx and under jest's swc transform (which does not support the dynamic import a folder scan needs).
+ * Add each new migration here; names sort by date, which is the order they run in.
+ */
+export const MIGRATIONS: Record<string, Migration> = {
+  '2026_12_02_0100_create_person': createPerson,
+  '2026_12_02_0110_create_person_role': createPersonRole,
+  '2026_12_02_0120_create_station': createStation,
+  '2026_12_02_0130_create_chart_form': createChartForm,
+  '2026_12_02_0140_create_scan': createScan,
+  '2026_12_02_0150_create_pin_set': createPinSet,
+  '2026_12_02_0160_create_ink_line': createInkLine,
+  '2026_12_02_0170_create_series_point': createSeriesPoint,
+  '2026_12_02_0180_create_demo_seed': createDemoSeed,
+};

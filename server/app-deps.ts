@@ -1,0 +1,12 @@
+import type { Logger } from 'pino';
+import type { Config } from './config';
+import type { Db } from './db/database';
+import type { Storage } from './storage/storage';
+
+/** What the app is built from; tests pass their own. */
+export interface AppDeps {
+  db: Db;
+  storage: Storage;
+  config: Config;
+  logger: Logger;
+}

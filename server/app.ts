@@ -1,0 +1,47 @@
+import express, { type Express } from 'express';
+import { pinoHttp } from 'pino-http';
+import type { AppDeps } from './app-deps';
+import { authRoutes } from './auth/auth.routes';
+import { createAuthenticate } from './auth/authenticate';
+import { chartFormsRoutes } from './chart-forms/chart-forms.routes';
+import { errorHandler } from './errors/error-handler';
+import { apiNotFound } from './errors/not-found';
+import { healthRoutes } from './health/health.routes';
+import { clientStatic } from './http/client-static';
+import { securityHeaders } from './http/security';
+import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
+import { peopleRoutes } from './people/people.routes';
+import { scansRoutes } from './scans/scans.routes';
+import { seriesRoutes } from './series/series.routes';
+import { stationsRoutes } from './stations/stations.routes';
+
+export type { AppDeps } from './app-deps';
+
+/** Body limit of ordinary JSON requests; the ink-line route has its own, larger one. */
+export const JSON_BODY_LIMIT = '2mb';
+
+/** Builds the Express app from its dependencies. Never listens: server.ts (or supertest) does. */
+export function createApp(deps: AppDeps): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
+  app.use(securityHeaders());
+
+  const authenticate = createAuthenticate(deps.config.jwtSecret);
+  app.use('/api/health', healthRoutes());
+  // Before the app-wide JSON parser, which would refuse a long ink line.
+  app.use('/api/scans', inkLinesRoutes(deps, authenticate));
+  app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.use('/api/auth', authRoutes(deps, authenticate));
+  app.use('/api/stations', authenticate, stationsRoutes(deps));
+  app.use('/api/chart-forms', authenticate, chartFormsRoutes(deps));
+  app.use('/api/scans', authenticate, scansRoutes(deps));
+  app.use('/api/people', authenticate, peopleRoutes(deps));
+  app.use('/api', seriesRoutes(deps, authenticate));
+  app.use('/api', apiNotFound);
+
+  app.use(clientStatic(deps.config.clientDir, deps.logger));
+  app.use(errorHandler(deps.logger, deps.config.maxUploadBytes));
+  return app;
+}

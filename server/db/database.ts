@@ -1,0 +1,26 @@
+import type { Kysely, Transaction } from 'kysely';
+import type { ChartFormTable } from '../chart-forms/chart-form.table';
+import type { DemoSeedTable } from '../demo/demo-seed.table';
+import type { InkLineTable } from '../ink-lines/ink-line.table';
+import type { PinSetTable } from '../ink-lines/pin-set.table';
+import type { PersonRoleTable, PersonTable } from '../people/person.table';
+import type { ScanTable } from '../scans/scan.table';
+import type { SeriesPointTable } from '../series/series-point.table';
+import type { StationTable } from '../stations/station.table';
+
+/** Every table, keyed by its SQL name; each feature owns its `*.table.ts`. */
+export interface Database {
+  person: PersonTable;
+  person_role: PersonRoleTable;
+  station: StationTable;
+  chart_form: ChartFormTable;
+  scan: ScanTable;
+  pin_set: PinSetTable;
+  ink_line: InkLineTable;
+  series_point: SeriesPointTable;
+  demo_seed: DemoSeedTable;
+}
+
+export type Db = Kysely<Database>;
+/** A db or a transaction: repositories take either, so a service can group calls in one transaction. */
+export type DbOrTrx = Kysely<Database> | Transaction<Database>;

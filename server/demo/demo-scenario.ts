@@ -1,0 +1,56 @@
+import type { Role } from '@shared/api/roles';
+import type { StationSummary } from '@shared/api/stations';
+import type { ChartForm } from '@shared/domain/chart-form';
+
+/** Password of every demo account (invented scenario; never use outside a demo). */
+export const DEMO_PASSWORD = 'isallo-demo';
+
+export const DEMO_PEOPLE: { email: string; displayName: string; roles: Role[] }[] = [
+  { email: 'admin@isallo.test', displayName: 'Maren Tolvik', roles: ['admin'] },
+  { email: 'archivist@isallo.test', displayName: 'Idris Fenwhistle', roles: ['archivist'] },
+  { email: 'volunteer@isallo.test', displayName: 'Pia Castellane', roles: ['volunteer'] },
+  { email: 'climatologist@isallo.test', displayName: 'Oskar Lindqvist-Hale', roles: ['climatologist'] },
+  { email: 'teacher@isallo.test', displayName: 'Nell Ambrose', roles: ['teacher'] },
+];
+
+/** Invented places. */
+export const DEMO_STATIONS: Omit<StationSummary, 'id'>[] = [
+  { code: 'KRO', name: 'Kestrel Ridge Observatory', latitude: 54.612, longitude: -2.871, elevationM: 412, timeZone: 'Europe/London' },
+  { code: 'SBS', name: 'Saltmere Bay School', latitude: 50.734, longitude: -3.405, elevationM: 18, timeZone: 'Europe/London' },
+];
+
+/** Used when the generated sample's own chart form is not there; the same geometry the generator draws. */
+export const DEMO_WEEKLY_FORM_FALLBACK: ChartForm = {
+  name: 'Weekly 950–1050 hPa',
+  pressureUnit: 'hPa',
+  pressureMin: 950,
+  pressureMax: 1050,
+  drumHours: 168,
+  mmPerHour: 1.5,
+  mmPerUnit: 0.9,
+  penArmRadiusMm: 150,
+  pivotPressure: null,
+  arcSide: 1,
+  gridPressureStep: 1,
+  labelPressureStep: 10,
+  gridHoursStep: 2,
+  labelHoursStep: 24,
+};
+
+/** An invented daily form: one turn in 26 h (a day plus overlap for late changes), 15-minute arcs. */
+export const DEMO_DAILY_FORM: ChartForm = {
+  name: 'Daily 950–1050 hPa',
+  pressureUnit: 'hPa',
+  pressureMin: 950,
+  pressureMax: 1050,
+  drumHours: 26,
+  mmPerHour: 8,
+  mmPerUnit: 0.9,
+  penArmRadiusMm: 150,
+  pivotPressure: null,
+  arcSide: 1,
+  gridPressureStep: 1,
+  labelPressureStep: 10,
+  gridHoursStep: 0.25,
+  labelHoursStep: 2,
+};

@@ -1,0 +1,122 @@
+import fs from 'node:fs/promises';
+import type { Logger } from 'pino';
+import sharp from 'sharp';
+import type { ChartFormSummary } from '@shared/api/chart-forms';
+import type { StationSummary } from '@shared/api/stations';
+import type { ChartForm } from '@shared/domain/chart-form';
+import { fitRegistration, readingToPixel } from '@shared/domain/registration';
+import { hashPassword } from '../auth/passwords';
+import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
+import type { Db } from '../db/database';
+import { toRegistrationPins } from '../ink-lines/ink-line-reading';
+import * as inkLinesService from '../ink-lines/ink-lines.service';
+import * as peopleRepository from '../people/people.repository';
+import * as scansService from '../scans/scans.service';
+import * as stationsRepository from '../stations/stations.repository';
+import type { Storage } from '../storage/storage';
+import { readDemoSample, type DemoSample } from './demo-sample';
+import { DEMO_DAILY_FORM, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_STATIONS, DEMO_WEEKLY_FORM_FALLBACK } from './demo-scenario';
+
+const SEED_NAME = 'demo-scenario';
+const MS_PER_HOUR = 3_600_000;
+
+export interface SeedDemoOptions {
+  fixturesDir: string;
+  logger?: Logger;
+}
+
+export interface SeedDemoResult {
+  /** False when the scenario had been seeded before and nothing was done. */
+  isSeeded: boolean;
+  readyScanId: string | null;
+  tracedScanId: string | null;
+}
+
+async function ensureStation(db: Db, station: Omit<StationSummary, 'id'>): Promise<StationSummary> {
+  return (await stationsRepository.findStationByCode(db, station.code)) ?? stationsRepository.insertStation(db, station);
+}
+
+async function ensureChartForm(db: Db, form: ChartForm): Promise<ChartFormSummary> {
+  return (await chartFormsRepository.findChartFormByName(db, form.name)) ?? chartFormsRepository.insertChartForm(db, form);
+}
+
+async function ensurePeople(db: Db): Promise<Map<string, string>> {
+  const idsByEmail = new Map<string, string>();
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  for (const person of DEMO_PEOPLE) {
+    const existing = await peopleRepository.findPersonCredentialsByEmail(db, person.email);
+    idsByEmail.set(person.email, existing?.id ?? (await peopleRepository.insertPerson(db, { ...person, passwordHash })));
+  }
+  return idsByEmail;
+}
+
+/** Copies a file into storage's temp folder, because an upload consumes its temp file. */
+async function stageFile(storage: Storage, sourcePath: string): Promise<string> {
+  const tempPath = storage.newTempPath('.upload');
+  await fs.copyFile(sourcePath, tempPath);
+  return tempPath;
+}
+
+/**
+ * Knots along the true series, placed where the registered chart would have them: the demo's handed-in
+ * line reads back (to the fit's accuracy) the series the sample was drawn from.
+ */
+function knotsFromTruth(sample: DemoSample, chartStartMs: number): { xPx: number; yPx: number }[] {
+  const fit = fitRegistration(sample.form, toRegistrationPins({ pins: sample.pins, knots: [] }, chartStartMs));
+  return sample.truth.map((row) =>
+    readingToPixel(sample.form, fit, { hours: (row.timeMs - chartStartMs) / MS_PER_HOUR, pressure: row.pressureHpa }),
+  );
+}
+
+/**
+ * Seeds the invented demo scenario once: the five accounts, the two stations, a weekly and a daily chart
+ * form and, when fixtures/samples/demo-weekly.png exists, that chart as a ready-to-trace scan of Kestrel
+ * Ridge plus a re-encoded copy handed in from its true series, so the Series area has data at once.
+ * Scans go through the same upload and hand-in services as the routes.
+ */
+export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOptions): Promise<SeedDemoResult> {
+  const notSeeded: SeedDemoResult = { isSeeded: false, readyScanId: null, tracedScanId: null };
+  if (await db.selectFrom('demo_seed').select('name').where('name', '=', SEED_NAME).executeTakeFirst()) return notSeeded;
+  await storage.ensureFolders();
+
+  const personIds = await ensurePeople(db);
+  const [kestrelRidge] = await Promise.all(DEMO_STATIONS.map((station) => ensureStation(db, station)));
+  const sample = await readDemoSample(options.fixturesDir);
+  const weeklyForm = await ensureChartForm(db, sample?.form ?? DEMO_WEEKLY_FORM_FALLBACK);
+  await ensureChartForm(db, DEMO_DAILY_FORM);
+
+  const result: SeedDemoResult = { isSeeded: true, readyScanId: null, tracedScanId: null };
+  if (sample) {
+    const archivistId = personIds.get('archivist@isallo.test') as string;
+    const volunteerId = personIds.get('volunteer@isallo.test') as string;
+    const fields = { stationId: kestrelRidge.id, chartFormId: weeklyForm.id, periodStart: new Date(sample.chartStart) };
+    const ready = await scansService.uploadScan(
+      db,
+      storage,
+      { tempPath: await stageFile(storage, sample.imagePath), originalName: 'demo-weekly.png' },
+      fields,
+      archivistId,
+    );
+    result.readyScanId = ready.id;
+
+    if (sample.truth.length >= 2 && sample.pins.length >= 3) {
+      // Same pixels, different bytes (higher compression), so the content-hash check sees a new scan.
+      const copyPath = storage.newTempPath('.upload');
+      await sharp(sample.imagePath).png({ compressionLevel: 9, adaptiveFiltering: true }).toFile(copyPath);
+      const traced = await scansService.uploadScan(
+        db,
+        storage,
+        { tempPath: copyPath, originalName: 'demo-weekly-traced.png' },
+        fields,
+        archivistId,
+      );
+      const chartStartMs = Date.parse(sample.chartStart);
+      await inkLinesService.handInInkLine(db, traced.id, { pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, volunteerId);
+      result.tracedScanId = traced.id;
+    }
+  }
+
+  await db.insertInto('demo_seed').values({ name: SEED_NAME }).execute();
+  options.logger?.info(result, 'demo scenario seeded');
+  return result;
+}

@@ -1,0 +1,40 @@
+import type { InkLineStatus, KnotInput, PinInput } from '@shared/api/ink-lines';
+import type { RegistrationFit } from '@shared/domain/registration';
+import type { DbOrTrx } from '../db/database';
+
+export async function insertPinSet(
+  db: DbOrTrx,
+  pinSet: { scanId: string; createdBy: string; pins: PinInput[]; fit: RegistrationFit },
+): Promise<string> {
+  const { id } = await db
+    .insertInto('pin_set')
+    .values({
+      scan_id: pinSet.scanId,
+      created_by: pinSet.createdBy,
+      pins: JSON.stringify(pinSet.pins),
+      model: pinSet.fit.model,
+      rms_hpa: pinSet.fit.rmsHpa,
+      rms_minutes: pinSet.fit.rmsMinutes,
+      fit: JSON.stringify(pinSet.fit),
+    })
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  return id;
+}
+
+export async function insertInkLine(
+  db: DbOrTrx,
+  inkLine: { scanId: string; pinSetId: string; authorId: string; status: InkLineStatus; knots: KnotInput[] },
+): Promise<{ id: string; version: number; status: InkLineStatus }> {
+  return db
+    .insertInto('ink_line')
+    .values({
+      scan_id: inkLine.scanId,
+      pin_set_id: inkLine.pinSetId,
+      author_id: inkLine.authorId,
+      status: inkLine.status,
+      knots: JSON.stringify(inkLine.knots),
+    })
+    .returning(['id', 'version', 'status'])
+    .executeTakeFirstOrThrow();
+}

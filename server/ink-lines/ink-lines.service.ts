@@ -1,0 +1,64 @@
+import type { InkLineDraft, InkLineSaved } from '@shared/api/ink-lines';
+import { RegistrationError } from '@shared/domain/registration';
+import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
+import type { Db } from '../db/database';
+import { AppError, HTTP } from '../errors/app-error';
+import * as scansRepository from '../scans/scans.repository';
+import * as seriesRepository from '../series/series.repository';
+import * as inkLinesRepository from './ink-lines.repository';
+import { readSeriesPoints, registerDraft } from './ink-line-reading';
+
+const TRACEABLE_STATUSES = ['ready_to_trace', 'traced'];
+
+/**
+ * Hands in a trace: fits the pins, reads the knots into hourly series points and, in one transaction,
+ * stores the pin set, the ink line (handed in, version 1) and its points and marks the scan traced.
+ */
+export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft, authorId: string): Promise<InkLineSaved> {
+  return db.transaction().execute(async (trx) => {
+    const scan = await scansRepository.findScanForTracing(trx, scanId);
+    if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
+    if (!TRACEABLE_STATUSES.includes(scan.status)) {
+      throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
+    }
+    const form = await chartFormsRepository.findChartFormById(trx, scan.chartFormId);
+    if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
+    const periodStartMs = scan.periodStart.getTime();
+
+    let fit;
+    try {
+      fit = registerDraft(form, draft, periodStartMs);
+    } catch (error) {
+      if (!(error instanceof RegistrationError)) throw error;
+      throw new AppError(HTTP.unprocessable, 'registration_failed', `The pins do not register the chart: ${error.message}.`, {
+        reason: error.code,
+      });
+    }
+    const points = readSeriesPoints(form, fit, draft, periodStartMs);
+
+    const pinSetId = await inkLinesRepository.insertPinSet(trx, { scanId, createdBy: authorId, pins: draft.pins, fit });
+    const inkLine = await inkLinesRepository.insertInkLine(trx, {
+      scanId,
+      pinSetId,
+      authorId,
+      status: 'handed_in',
+      knots: draft.knots,
+    });
+    await seriesRepository.insertSeriesPoints(trx, inkLine.id, scan.stationId, points);
+    await scansRepository.updateScanStatus(trx, scanId, 'traced');
+
+    const first = points[0];
+    return {
+      inkLineId: inkLine.id,
+      scanId,
+      status: inkLine.status,
+      version: inkLine.version,
+      registrationModel: fit.model,
+      registrationRmsHpa: fit.rmsHpa,
+      registrationRmsMinutes: fit.rmsMinutes,
+      pinResiduals: fit.residuals.map((residual) => ({ index: residual.index, pressureHpa: residual.pressureHpa, minutes: residual.minutes })),
+      seriesPointCount: points.length,
+      firstPoint: first ? { time: new Date(first.timeMs).toISOString(), pressureHpa: first.pressureHpa, flag: first.flag } : null,
+    };
+  });
+}
