@@ -1,0 +1,89 @@
+import { DatePipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSortModule, Sort } from '@angular/material/sort';
+import { MatTableModule } from '@angular/material/table';
+import { RouterLink } from '@angular/router';
+import { DEFAULT_PAGE_SIZE, type Page, type PageQuery } from '@shared/api/paging';
+import { SCAN_SORT_KEYS, SCAN_STATUS_LABELS, SCAN_STATUSES, type ScanSortKey, type ScanStatus, type ScanSummary } from '@shared/api/scans';
+import { catchError, combineLatest, map, of, scan, startWith, switchMap } from 'rxjs';
+
+import { ScansApi } from '../../core/api/scans-api';
+import { ApiError } from '../../core/http/api-error';
+import { ScanStatusChip } from '../../shared/scan-status-chip/scan-status-chip';
+
+interface CatalogueView {
+  page: Page<ScanSummary> | null;
+  isLoading: boolean;
+  failure: string | null;
+}
+
+/** Every scan in the archive, paged and sorted by the server. */
+@Component({
+  selector: 'isl-catalogue',
+  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatSelectModule, MatFormFieldModule, ScanStatusChip],
+  templateUrl: './catalogue.html',
+  styleUrl: './catalogue.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class Catalogue {
+  private readonly scansApi = inject(ScansApi);
+
+  protected readonly columns = ['periodStart', 'stationName', 'chartFormName', 'originalName', 'status', 'inkLineCount', 'uploadedAt'];
+  protected readonly statuses = SCAN_STATUSES;
+  protected readonly statusLabels = SCAN_STATUS_LABELS;
+  protected readonly query = signal<PageQuery<ScanSortKey>>({ page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'uploadedAt', direction: 'desc' });
+  protected readonly status = signal<ScanStatus | null>(null);
+  private readonly reloads = signal(0);
+
+  private readonly view = toSignal(
+    combineLatest([toObservable(this.query), toObservable(this.status), toObservable(this.reloads)]).pipe(
+      switchMap(([query, status]) =>
+        this.scansApi.list(query, status ? { status } : {}).pipe(
+          map((page): CatalogueView => ({ page, isLoading: false, failure: null })),
+          catchError((error: unknown) => of<CatalogueView>({ page: null, isLoading: false, failure: describe(error) })),
+          startWith<CatalogueView>({ page: null, isLoading: true, failure: null }),
+        ),
+      ),
+      // Keep the last page on screen while the next one loads, so the table does not flash empty.
+      scan((previous, next) => (next.isLoading ? { ...next, page: previous.page } : next)),
+    ),
+    { initialValue: { page: null, isLoading: true, failure: null } satisfies CatalogueView },
+  );
+  protected readonly page = computed(() => this.view().page);
+  protected readonly rows = computed(() => this.page()?.items ?? []);
+  protected readonly total = computed(() => this.page()?.total ?? 0);
+  protected readonly isLoading = computed(() => this.view().isLoading);
+  protected readonly failure = computed(() => this.view().failure);
+
+  reload(): void {
+    this.reloads.update((n) => n + 1);
+  }
+
+  protected turnPage(event: PageEvent): void {
+    this.query.update((query) => ({ ...query, page: event.pageIndex, pageSize: event.pageSize }));
+  }
+
+  protected sortBy(sort: Sort): void {
+    const key = (SCAN_SORT_KEYS as readonly string[]).includes(sort.active) ? (sort.active as ScanSortKey) : undefined;
+    this.query.update((query) => ({
+      ...query,
+      page: 0,
+      sort: sort.direction === '' ? undefined : key,
+      direction: sort.direction === '' ? 'asc' : sort.direction,
+    }));
+  }
+
+  protected filterByStatus(status: ScanStatus | null): void {
+    this.status.set(status);
+    this.query.update((query) => ({ ...query, page: 0 }));
+  }
+}
+
+function describe(error: unknown): string {
+  return error instanceof ApiError ? error.message : 'The catalogue could not be loaded.';
+}

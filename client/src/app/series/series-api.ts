@@ -1,0 +1,31 @@
+import { HttpClient, HttpParams } from '@angular/common/http';
+import { inject, Injectable } from '@angular/core';
+import type { Observable } from 'rxjs';
+import { API } from '@shared/api/routes';
+import type { SeriesResponse } from '@shared/api/series';
+
+import { rangeInstantsMs, type SeriesRange } from './series-range';
+
+/** Station series reads: the points as JSON for the plot, and the same range as CSV. */
+@Injectable({ providedIn: 'root' })
+export class SeriesApi {
+  private readonly http = inject(HttpClient);
+
+  get(range: SeriesRange): Observable<SeriesResponse> {
+    return this.http.get<SeriesResponse>(API.series, { params: toSeriesParams(range) });
+  }
+
+  /** The CSV as a Blob (fetched through HttpClient so the token is sent). */
+  getCsv(range: SeriesRange): Observable<Blob> {
+    return this.http.get(API.seriesCsv, { params: toSeriesParams(range), responseType: 'blob' });
+  }
+}
+
+/** stationId plus from/to as ISO 8601 UTC instants; `to` is the midnight after the last day, so that day is included. */
+export function toSeriesParams(range: SeriesRange): HttpParams {
+  const [fromMs, toMs] = rangeInstantsMs(range);
+  return new HttpParams()
+    .set('stationId', range.stationId)
+    .set('from', new Date(fromMs).toISOString())
+    .set('to', new Date(toMs).toISOString());
+}

@@ -1,0 +1,49 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import type { SeriesPoint } from '@shared/api/series';
+
+import { buildLinePath, createPlotScales, medianStepMs, type PlotBox } from './plot-scales';
+
+const BOX: PlotBox = { width: 960, height: 360, marginLeft: 56, marginRight: 16, marginTop: 12, marginBottom: 36 };
+// A step more than this many typical steps long is treated as missing data.
+const GAP_FACTOR = 3;
+
+/** Pressure (hPa) against time (UTC) as SVG: axes with ticks, the line with gaps left blank, flagged points marked. */
+@Component({
+  selector: 'isl-pressure-plot',
+  templateUrl: './pressure-plot.svg',
+  styleUrl: './pressure-plot.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PressurePlot {
+  readonly points = input.required<readonly SeriesPoint[]>();
+  /** The requested range in epoch ms; without it the plot spans the points. */
+  readonly timeDomainMs = input<[number, number] | undefined>(undefined);
+
+  protected readonly box = BOX;
+  private readonly scales = computed(() => createPlotScales(this.points(), BOX, this.timeDomainMs()));
+  protected readonly linePath = computed(() => {
+    const maxStepMs = medianStepMs(this.points()) * GAP_FACTOR;
+    return buildLinePath(this.points(), this.scales(), maxStepMs > 0 ? maxStepMs : Number.POSITIVE_INFINITY);
+  });
+  protected readonly xTicks = computed(() => {
+    const { x } = this.scales();
+    const format = x.tickFormat();
+    return x.ticks(8).map((tick) => ({ at: x(tick), label: format(tick) }));
+  });
+  protected readonly yTicks = computed(() => {
+    const { y } = this.scales();
+    return y.ticks(6).map((tick) => ({ at: y(tick), label: String(tick) }));
+  });
+  protected readonly flaggedMarks = computed(() => {
+    const { x, y } = this.scales();
+    return this.points()
+      .filter((point) => point.flag === 'suspect' || point.flag === 'off_scale' || point.flag === 'interpolated')
+      .map((point) => ({ cx: x(new Date(point.time)), cy: y(point.pressureHpa), flag: point.flag }));
+  });
+  protected readonly gapSpans = computed(() => {
+    const { x } = this.scales();
+    return this.points()
+      .filter((point) => point.flag === 'gap')
+      .map((point) => x(new Date(point.time)));
+  });
+}
