@@ -1,0 +1,92 @@
+import fs from 'node:fs/promises';
+import os from 'node:os';
+import path from 'node:path';
+import type { Express } from 'express';
+import { sql } from 'kysely';
+import pino from 'pino';
+import { createApp } from '../../server/app';
+import type { Config } from '../../server/config';
+import { createDb } from '../../server/db/create-db';
+import type { Database, Db } from '../../server/db/database';
+import { createFileStorage, type Storage } from '../../server/storage/storage';
+
+export const TEST_JWT_SECRET = 'test-secret-at-least-16-characters';
+
+export interface TestContext {
+  app: Express;
+  db: Db;
+  storage: Storage;
+  config: Config;
+  close(): Promise<void>;
+}
+
+/** A Config for tests: the API test database, a fresh storage folder, a silent logger level. */
+export function testConfig(storageDir: string, overrides: Partial<Config> = {}): Config {
+  const databaseUrl = process.env['DATABASE_URL'];
+  if (!databaseUrl) throw new Error('DATABASE_URL is not set for the API tests');
+  return {
+    port: 0,
+    host: '127.0.0.1',
+    databaseUrl,
+    jwtSecret: TEST_JWT_SECRET,
+    tokenTtlSeconds: 3600,
+    storageDir,
+    clientDir: path.join(storageDir, 'no-client'),
+    maxUploadBytes: 20 * 1024 * 1024,
+    logLevel: 'silent',
+    ...overrides,
+  };
+}
+
+/** The app as createApp builds it, over the test database and a storage folder of its own. */
+export async function createTestContext(overrides: Partial<Config> = {}): Promise<TestContext> {
+  const parent = process.env['ISALLO_TEST_WORK_DIR'] ?? os.tmpdir();
+  await fs.mkdir(parent, { recursive: true });
+  const storageDir = await fs.mkdtemp(path.join(parent, 'isallo-api-'));
+  const config = testConfig(storageDir, overrides);
+  const db = createDb(config.databaseUrl, 4);
+  const storage = createFileStorage(storageDir);
+  await storage.ensureFolders();
+  const app = createApp({ db, storage, config, logger: pino({ level: 'silent' }) });
+  return {
+    app,
+    db,
+    storage,
+    config,
+    async close() {
+      await db.destroy();
+      await fs.rm(storageDir, { recursive: true, force: true });
+    },
+  };
+}
+
+const APP_TABLES: (keyof Database)[] = [
+  'series_point',
+  'ink_line',
+  'pin_set',
+  'scan',
+  'chart_form',
+  'station',
+  'person_role',
+  'person',
+  'demo_seed',
+];
+
+/** Empties the given tables (default: every app table); CASCADE takes rows that point at them. */
+export async function truncateTables(db: Db, tables: (keyof Database)[] = APP_TABLES): Promise<void> {
+  await sql`truncate table ${sql.join(tables.map((table) => sql.table(table)))} cascade`.execute(db);
+}
+
+/** Every file under a folder, relative to it (for "nothing was stored" checks). */
+export async function listFiles(folder: string): Promise<string[]> {
+  try {
+    const entries = await fs.readdir(folder, { recursive: true, withFileTypes: true });
+    return entries
+      .filter((entry) => entry.isFile())
+      .map((entry) => path.relative(folder, path.join(entry.parentPath, entry.name)))
+      .sort();
+  } catch (error) {
+    if ((error as NodeJS.ErrnoException).code === 'ENOENT') return [];
+    throw error;
+  }
+}

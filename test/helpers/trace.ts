@@ -1,0 +1,61 @@
+import type { InkLineDraft, PinInput } from '@shared/api/ink-lines';
+import type { ChartForm } from '@shared/domain/chart-form';
+import { type RegistrationFit, readingToPixel } from '@shared/domain/registration';
+
+const MS_PER_HOUR = 3_600_000;
+/** Scan scale of the synthetic trace: 150 dpi is 150 / 25.4 px per mm. */
+const PX_PER_MM = 150 / 25.4;
+
+/**
+ * The "true" placement of the chart on the synthetic scan: paper (u right, v up, mm) → pixel (x right, y down),
+ * a plain scale and shift with the form's own pen-arm radius.
+ */
+export function syntheticPlacement(form: ChartForm): RegistrationFit {
+  return {
+    model: 'affine',
+    paperToPixel: [PX_PER_MM, 0, 120, 0, -PX_PER_MM, 40 + (form.pressureMax - form.pressureMin) * form.mmPerUnit * PX_PER_MM, 0, 0, 1],
+    penArmRadiusMm: form.penArmRadiusMm,
+    isRadiusFitted: false,
+    residuals: [],
+    rmsHpa: 0,
+    rmsMinutes: 0,
+  };
+}
+
+/** The invented pressure of the synthetic trace at a time: a slow 72-hour swing about 1000 hPa. */
+export function syntheticPressureHpa(hours: number): number {
+  return 1000 + 12 * Math.sin((2 * Math.PI * hours) / 72);
+}
+
+function pinAt(form: ChartForm, periodStartMs: number, hours: number, pressure: number): PinInput {
+  const { xPx, yPx } = readingToPixel(form, syntheticPlacement(form), { hours, pressure });
+  return { xPx, yPx, time: new Date(periodStartMs + hours * MS_PER_HOUR).toISOString(), pressure };
+}
+
+/**
+ * A hand-in for an hPa chart form: five pins on printed grid crossings and knots every 10 minutes
+ * from `fromHours` to `toHours` along syntheticPressureHpa, all placed by syntheticPlacement.
+ */
+export function syntheticDraft(form: ChartForm, periodStart: string, fromHours = 2, toHours = 26): InkLineDraft {
+  const periodStartMs = Date.parse(periodStart);
+  const pins = [
+    pinAt(form, periodStartMs, 24, 1040),
+    pinAt(form, periodStartMs, 144, 1040),
+    pinAt(form, periodStartMs, 144, 960),
+    pinAt(form, periodStartMs, 24, 960),
+    pinAt(form, periodStartMs, 72, 1000),
+  ];
+  const knots = [];
+  for (let minutes = fromHours * 60; minutes <= toHours * 60; minutes += 10) {
+    const hours = minutes / 60;
+    knots.push(readingToPixel(form, syntheticPlacement(form), { hours, pressure: syntheticPressureHpa(hours) }));
+  }
+  return { pins, knots };
+}
+
+/** Three pins on one printed pressure line: no registration can be fitted from them. */
+export function collinearDraft(form: ChartForm, periodStart: string): InkLineDraft {
+  const periodStartMs = Date.parse(periodStart);
+  const { knots } = syntheticDraft(form, periodStart);
+  return { pins: [pinAt(form, periodStartMs, 24, 1000), pinAt(form, periodStartMs, 72, 1000), pinAt(form, periodStartMs, 120, 1000)], knots };
+}
