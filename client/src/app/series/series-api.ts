@@ -4,7 +4,7 @@ import type { Observable } from 'rxjs';
 import { API } from '@shared/api/routes';
 import type { SeriesResponse } from '@shared/api/series';
 
-import { rangeInstantsMs, type SeriesRange } from './series-range';
+import type { SeriesRange } from './series-range';
 
 /** Station series reads: the points as JSON for the plot, and the same range as CSV. */
 @Injectable({ providedIn: 'root' })
@@ -21,11 +21,7 @@ export class SeriesApi {
   }
 }
 
-/** stationId plus from/to as ISO 8601 UTC instants; `to` is the midnight after the last day, so that day is included. */
+/** stationId plus from/to as the UTC days typed (YYYY-MM-DD); the server reads a `to` day as included whole. */
 export function toSeriesParams(range: SeriesRange): HttpParams {
-  const [fromMs, toMs] = rangeInstantsMs(range);
-  return new HttpParams()
-    .set('stationId', range.stationId)
-    .set('from', new Date(fromMs).toISOString())
-    .set('to', new Date(toMs).toISOString());
+  return new HttpParams().set('stationId', range.stationId).set('from', range.fromDay).set('to', range.toDay);
 }

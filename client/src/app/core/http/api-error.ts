@@ -39,9 +39,19 @@ export function toApiError(response: HttpErrorResponse, body: unknown = response
 /** Error bodies of blob requests (previews, CSV) arrive as a Blob; read them so they map like any other. */
 export async function readErrorBody(response: HttpErrorResponse): Promise<unknown> {
   const body: unknown = response.error;
-  if (typeof Blob !== 'undefined' && body instanceof Blob) return parseJson(await body.text());
+  if (typeof Blob !== 'undefined' && body instanceof Blob) return parseJson(await readBlobText(body));
   if (typeof body === 'string') return parseJson(body);
   return body;
+}
+
+// FileReader rather than Blob.text(): the same code then runs in jsdom, which lacks Blob.text().
+function readBlobText(blob: Blob): Promise<string> {
+  return new Promise((resolve, reject) => {
+    const reader = new FileReader();
+    reader.onload = () => resolve(String(reader.result ?? ''));
+    reader.onerror = () => reject(reader.error);
+    reader.readAsText(blob);
+  });
 }
 
 function parseJson(text: string): unknown {

@@ -1,0 +1,68 @@
+import { HttpEventType, provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+
+import { ScansApi } from './scans-api';
+
+describe('ScansApi', () => {
+  let api: ScansApi;
+  let controller: HttpTestingController;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({ providers: [provideHttpClient(), provideHttpClientTesting()] });
+    api = TestBed.inject(ScansApi);
+    controller = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => controller.verify());
+
+  it('when a catalogue page is asked for, then page, pageSize, sort, direction and the filters go in the query', () => {
+    api.list({ page: 2, pageSize: 50, sort: 'periodStart', direction: 'desc' }, { status: 'ready_to_trace', stationId: 'st-1' }).subscribe();
+
+    const request = controller.expectOne((r) => r.url === '/api/scans');
+
+    expect(request.request.method).toBe('GET');
+    expect(request.request.params.get('page')).toBe('2');
+    expect(request.request.params.get('pageSize')).toBe('50');
+    expect(request.request.params.get('sort')).toBe('periodStart');
+    expect(request.request.params.get('direction')).toBe('desc');
+    expect(request.request.params.get('status')).toBe('ready_to_trace');
+    expect(request.request.params.get('stationId')).toBe('st-1');
+  });
+
+  it('when no sort or filter is chosen, then those parameters are left out', () => {
+    api.list({ page: 0, pageSize: 25, direction: 'asc' }).subscribe();
+
+    const request = controller.expectOne((r) => r.url === '/api/scans');
+
+    expect(request.request.params.keys().sort()).toEqual(['direction', 'page', 'pageSize']);
+  });
+
+  it('when a scan is uploaded, then the fields and the file go as multipart with progress events', () => {
+    const file = new File(['not really an image'], 'kro-week-10.png', { type: 'image/png' });
+    const eventTypes: HttpEventType[] = [];
+
+    api.upload(file, { stationId: 'st-1', chartFormId: 'cf-1', periodStart: '2026-03-02T00:00:00.000Z' }).subscribe((event) => eventTypes.push(event.type));
+    const request = controller.expectOne('/api/scans');
+    request.event({ type: HttpEventType.UploadProgress, loaded: 5, total: 10 });
+    request.flush({ id: 'scan-1' }, { status: 201, statusText: 'Created' });
+
+    const body = request.request.body as FormData;
+    expect(request.request.reportProgress).toBe(true);
+    expect(body.get('stationId')).toBe('st-1');
+    expect(body.get('chartFormId')).toBe('cf-1');
+    expect(body.get('periodStart')).toBe('2026-03-02T00:00:00.000Z');
+    expect((body.get('file') as File).name).toBe('kro-week-10.png');
+    expect(eventTypes).toContain(HttpEventType.UploadProgress);
+    expect(eventTypes).toContain(HttpEventType.Response);
+  });
+
+  it('when a preview is fetched, then it is asked for as a blob from the preview path', () => {
+    api.preview('scan 1').subscribe();
+
+    const request = controller.expectOne('/api/scans/scan%201/preview');
+
+    expect(request.request.responseType).toBe('blob');
+    request.flush(new Blob());
+  });
+});
