@@ -1,0 +1,33 @@
+/** A span of the pen line that needs a flag: no ink (gap), or the pen riding the edge of the printed range. */
+export interface InkSpan {
+  kind: 'gap' | 'off-scale';
+  /** Pixel columns the span covers (continuous coordinates). */
+  startXPx: number;
+  endXPx: number;
+  /**
+   * Points bounding the span. Gap: the last point before it and the first after it (−1 / point count
+   * when the span starts before the first point or ends after the last). Off-scale: first and last point inside.
+   */
+  startIndex: number;
+  endIndex: number;
+}
+
+/**
+ * The followed pen line in scan pixels (continuous coordinates), in time order, with a confidence (0–1)
+ * per point. Consecutive points are joined except across a gap span.
+ */
+export interface InkTrace {
+  xPx: Float64Array;
+  yPx: Float64Array;
+  confidence: Float32Array;
+  spans: InkSpan[];
+  /** Width of the pen line down a column, px, as measured. */
+  lineWidthPx: number;
+  /** How ink was told from paper: 'colour' (grid colour projected out) or 'grey' (darker than the grid). */
+  contrastMode: 'colour' | 'grey';
+}
+
+/** True when points i and i + 1 are separated by a gap span. */
+export function isGapAfter(trace: InkTrace, index: number): boolean {
+  return trace.spans.some((s) => s.kind === 'gap' && s.startIndex === index && s.endIndex === index + 1);
+}
