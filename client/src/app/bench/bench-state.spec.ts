@@ -1,0 +1,100 @@
+import { TestBed } from '@angular/core/testing';
+
+import { BenchState } from './bench-state';
+
+describe('BenchState', () => {
+  let state: BenchState;
+
+  beforeEach(() => {
+    TestBed.configureTestingModule({ providers: [BenchState] });
+    state = TestBed.inject(BenchState);
+  });
+
+  it('when the preview is a third of the scan width, then a click is stored at three times its preview position', () => {
+    state.setPreviewWidth(7200, 2400);
+
+    state.chooseStep('ink');
+    state.pickPoint({ x: 100, y: 50.5 });
+
+    expect(state.knots()).toEqual([{ xPx: 300, yPx: 151.5 }]);
+  });
+
+  it('when the preview is the full scan, then clicks keep their pixel position', () => {
+    state.setPreviewWidth(1800, 1800);
+
+    const point = state.toScanPoint({ x: 12.25, y: 640 });
+
+    expect(point).toEqual({ xPx: 12.25, yPx: 640 });
+  });
+
+  it('when the preview size is not known yet, then converting a click refuses rather than guessing', () => {
+    const convert = () => state.toScanPoint({ x: 1, y: 1 });
+
+    expect(convert).toThrow('preview size');
+  });
+
+  it('when a crossing is picked in the Pin step and saved, then it becomes a pin in scan pixels with its time and pressure', () => {
+    state.setPreviewWidth(4000, 2000);
+
+    state.pickPoint({ x: 10, y: 20 });
+    const pendingBeforeSave = state.pendingPin();
+    state.savePin('2026-03-03T12:00:00.000Z', 1012);
+
+    expect(pendingBeforeSave).toEqual({ xPx: 20, yPx: 40 });
+    expect(state.pins()).toEqual([{ xPx: 20, yPx: 40, time: '2026-03-03T12:00:00.000Z', pressure: 1012 }]);
+    expect(state.pendingPin()).toBeNull();
+    expect(state.knotCount()).toBe(0);
+  });
+
+  it('when a pin is deleted, then the others keep their order', () => {
+    state.setPreviewWidth(1000, 1000);
+    for (const [x, pressure] of [[1, 990], [2, 1000], [3, 1010]] as const) {
+      state.pickPoint({ x, y: 0 });
+      state.savePin('2026-03-03T00:00:00.000Z', pressure);
+    }
+
+    state.deletePin(1);
+
+    expect(state.pins().map((pin) => pin.pressure)).toEqual([990, 1010]);
+  });
+
+  it('when the last knot is undone, then only that knot goes', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.chooseStep('ink');
+    state.pickPoint({ x: 1, y: 1 });
+    state.pickPoint({ x: 2, y: 2 });
+
+    state.undoKnot();
+
+    expect(state.knots()).toEqual([{ xPx: 1, yPx: 1 }]);
+    expect(state.knotCount()).toBe(1);
+  });
+
+  it('when saving a pin without a picked crossing, then it refuses', () => {
+    const save = () => state.savePin('2026-03-03T00:00:00.000Z', 1000);
+
+    expect(save).toThrow('grid crossing');
+  });
+
+  it('when the step changes, then a half-entered crossing is dropped', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.pickPoint({ x: 5, y: 5 });
+
+    state.chooseStep('ink');
+
+    expect(state.pendingPin()).toBeNull();
+    expect(state.step()).toBe('ink');
+  });
+
+  it('when pins and knots are placed, then the draft holds both in scan pixels', () => {
+    state.setPreviewWidth(2000, 1000);
+    state.pickPoint({ x: 1, y: 2 });
+    state.savePin('2026-03-02T00:00:00.000Z', 29.92);
+    state.chooseStep('ink');
+    state.pickPoint({ x: 3, y: 4 });
+
+    const draft = state.draft();
+
+    expect(draft).toEqual({ pins: [{ xPx: 2, yPx: 4, time: '2026-03-02T00:00:00.000Z', pressure: 29.92 }], knots: [{ xPx: 6, yPx: 8 }] });
+  });
+});
