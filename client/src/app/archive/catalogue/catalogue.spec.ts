@@ -1,0 +1,100 @@
+import { provideHttpClient } from '@angular/common/http';
+import { HttpTestingController, provideHttpClientTesting, TestRequest } from '@angular/common/http/testing';
+import { TestBed } from '@angular/core/testing';
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { MatPaginatorHarness } from '@angular/material/paginator/testing';
+import { MatSortHarness } from '@angular/material/sort/testing';
+import { MatTableHarness } from '@angular/material/table/testing';
+import { provideRouter } from '@angular/router';
+import type { Page } from '@shared/api/paging';
+import type { ScanSummary } from '@shared/api/scans';
+
+import { Catalogue } from './catalogue';
+
+function scan(index: number): ScanSummary {
+  return {
+    id: `scan-${index}`,
+    stationId: 'st-kro',
+    stationName: 'Kestrel Ridge Observatory',
+    chartFormId: 'cf-1',
+    chartFormName: 'Weekly 950–1050 hPa',
+    periodStart: '2026-03-02T00:00:00.000Z',
+    status: 'ready_to_trace',
+    originalName: `kro-week-${index}.png`,
+    mediaType: 'image/png',
+    sizeBytes: 1000,
+    widthPx: 4800,
+    heightPx: 1600,
+    sha256: 'ab'.repeat(32),
+    uploadedAt: '2026-03-10T09:00:00.000Z',
+    inkLineCount: 0,
+  };
+}
+
+function pageOf(count: number, total: number, page: number): Page<ScanSummary> {
+  return { items: Array.from({ length: count }, (_, i) => scan(page * 25 + i)), total, page, pageSize: 25 };
+}
+
+describe('Catalogue', () => {
+  let controller: HttpTestingController;
+
+  function expectList(): TestRequest {
+    return controller.expectOne((request) => request.url === '/api/scans');
+  }
+
+  beforeEach(async () => {
+    TestBed.configureTestingModule({ providers: [provideRouter([]), provideHttpClient(), provideHttpClientTesting()] });
+    controller = TestBed.inject(HttpTestingController);
+  });
+
+  afterEach(() => controller.verify());
+
+  it('when the catalogue opens, then it asks for the first page, newest uploads first, and shows the rows', async () => {
+    const fixture = TestBed.createComponent(Catalogue);
+    const harnesses = TestbedHarnessEnvironment.loader(fixture);
+    await fixture.whenStable();
+
+    const request = expectList();
+    request.flush(pageOf(3, 3, 0));
+    const rows = await (await harnesses.getHarness(MatTableHarness)).getRows();
+
+    expect(request.request.params.get('page')).toBe('0');
+    expect(request.request.params.get('pageSize')).toBe('25');
+    expect(request.request.params.get('sort')).toBe('uploadedAt');
+    expect(request.request.params.get('direction')).toBe('desc');
+    expect(rows).toHaveLength(3);
+  });
+
+  it('when the next page is chosen, then the server is asked for page 1', async () => {
+    const fixture = TestBed.createComponent(Catalogue);
+    const harnesses = TestbedHarnessEnvironment.loader(fixture);
+    await fixture.whenStable();
+    expectList().flush(pageOf(25, 60, 0));
+    const paginator = await harnesses.getHarness(MatPaginatorHarness);
+
+    await paginator.goToNextPage();
+    await fixture.whenStable();
+
+    const request = expectList();
+    expect(request.request.params.get('page')).toBe('1');
+    request.flush(pageOf(25, 60, 1));
+  });
+
+  it('when a column header is clicked, then the server sorts by it from the first page', async () => {
+    const fixture = TestBed.createComponent(Catalogue);
+    const harnesses = TestbedHarnessEnvironment.loader(fixture);
+    await fixture.whenStable();
+    expectList().flush(pageOf(25, 60, 0));
+    const sort = await harnesses.getHarness(MatSortHarness);
+    const [stationHeader] = await sort.getSortHeaders({ label: 'Station' });
+
+    await stationHeader.click();
+    await fixture.whenStable();
+
+    const request = expectList();
+    expect(request.request.params.get('sort')).toBe('stationName');
+    expect(request.request.params.get('direction')).toBe('asc');
+    expect(request.request.params.get('page')).toBe('0');
+    request.flush(pageOf(25, 60, 0));
+  });
+});
