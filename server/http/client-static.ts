@@ -18,8 +18,10 @@ export function clientStatic(clientDir: string, logger: Logger): Router {
   router.use(
     express.static(clientDir, {
       index: false,
+      // Our own Cache-Control below; serve-static's would replace it.
+      cacheControl: false,
       setHeaders: (res, filePath) => {
-        const isHashed = /\.[0-9A-Za-z]{8,}\.(js|css|woff2?|png|svg)$/.test(filePath) || /\/media\//.test(filePath);
+        const isHashed = /[-.][0-9A-Za-z]{8,}\.(js|css|woff2?|png|svg|jpg)$/.test(filePath) || /\/media\//.test(filePath);
         res.setHeader('Cache-Control', isHashed ? 'public, max-age=31536000, immutable' : 'no-cache');
       },
     }),

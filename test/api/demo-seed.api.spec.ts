@@ -1,0 +1,76 @@
+import path from 'node:path';
+import request from 'supertest';
+import { API } from '@shared/api/routes';
+import { seedDemo } from '../../server/demo/seed-demo';
+import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/demo/demo-scenario';
+import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
+
+const FIXTURES_DIR = path.resolve(__dirname, '../../fixtures');
+const MISSING_FIXTURES_DIR = path.resolve(__dirname, 'no-fixtures-here');
+
+describe('demo scenario seed', () => {
+  let context: TestContext;
+
+  beforeAll(async () => {
+    context = await createTestContext();
+  });
+
+  beforeEach(async () => {
+    await truncateTables(context.db);
+  });
+
+  afterAll(async () => {
+    await truncateTables(context.db);
+    await context.close();
+  });
+
+  it('when the demo is seeded, then every demo account signs in with the demo password and holds its role', async () => {
+    await seedDemo(context.db, context.storage, { fixturesDir: MISSING_FIXTURES_DIR });
+
+    const responses = await Promise.all(
+      DEMO_PEOPLE.map((person) => request(context.app).post(API.signIn).send({ email: person.email, password: DEMO_PASSWORD })),
+    );
+
+    expect(responses.map((response) => response.status)).toEqual(DEMO_PEOPLE.map(() => 200));
+    expect(responses.map((response) => response.body.person.roles)).toEqual(DEMO_PEOPLE.map((person) => person.roles));
+    const stations = await context.db.selectFrom('station').select(['code', 'name']).orderBy('code').execute();
+    expect(stations).toEqual([
+      { code: 'KRO', name: 'Kestrel Ridge Observatory' },
+      { code: 'SBS', name: 'Saltmere Bay School' },
+    ]);
+    const forms = await context.db.selectFrom('chart_form').select(['drum_hours']).orderBy('drum_hours').execute();
+    expect(forms.map((form) => form.drum_hours)).toEqual([26, 168]);
+  });
+
+  it('when the demo is seeded twice, then the second run does nothing', async () => {
+    const first = await seedDemo(context.db, context.storage, { fixturesDir: MISSING_FIXTURES_DIR });
+
+    const second = await seedDemo(context.db, context.storage, { fixturesDir: MISSING_FIXTURES_DIR });
+
+    expect(first.isSeeded).toBe(true);
+    expect(second.isSeeded).toBe(false);
+    expect(await context.db.selectFrom('person').select('id').execute()).toHaveLength(DEMO_PEOPLE.length);
+    expect(await context.db.selectFrom('station').select('id').execute()).toHaveLength(2);
+  });
+
+  it('when the generated weekly sample exists, then Kestrel Ridge has a ready scan and a traced one with a series', async () => {
+    const result = await seedDemo(context.db, context.storage, { fixturesDir: FIXTURES_DIR });
+
+    const scans = await context.db
+      .selectFrom('scan')
+      .innerJoin('station', 'station.id', 'scan.station_id')
+      .select(['scan.id', 'scan.status', 'station.code'])
+      .orderBy('scan.status')
+      .execute();
+    expect(scans).toEqual([
+      { id: result.readyScanId, status: 'ready_to_trace', code: 'KRO' },
+      { id: result.tracedScanId, status: 'traced', code: 'KRO' },
+    ]);
+    const { count } = await context.db
+      .selectFrom('series_point')
+      .select((eb) => eb.fn.countAll<number>().as('count'))
+      .executeTakeFirstOrThrow();
+    // The sample is a weekly chart: well over a hundred hourly points.
+    expect(count).toBeGreaterThan(100);
+  });
+});

@@ -1,0 +1,182 @@
+import fs from 'node:fs/promises';
+import request from 'supertest';
+import type { Role } from '@shared/api/roles';
+import { ROLES } from '@shared/api/roles';
+import { API } from '@shared/api/routes';
+import * as scansService from '../../server/scans/scans.service';
+import { createChartForm, createPerson, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
+import { makePng } from '../helpers/images';
+import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
+import { syntheticDraft } from '../helpers/trace';
+
+const PERIOD_START = '2026-03-02T00:00:00.000Z';
+
+interface RouteCase {
+  name: string;
+  roles: readonly Role[];
+  successStatus: number;
+  call(token: string | null): Promise<request.Response>;
+  /** Rows a successful call adds; a refused call must leave this unchanged. */
+  sideEffectCount?: () => Promise<number>;
+}
+
+describe('who may call each route', () => {
+  let context: TestContext;
+  const people = {} as Record<Role, TestPerson>;
+  let stationId: string;
+  let chartFormId: string;
+  let scanId: string;
+
+  function withToken(call: request.Test, token: string | null): request.Test {
+    return token === null ? call : call.set('Authorization', `Bearer ${token}`);
+  }
+
+  async function count(table: 'scan' | 'ink_line'): Promise<number> {
+    const { total } = await context.db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow();
+    return total;
+  }
+
+  const routes: RouteCase[] = [
+    { name: 'GET /api/auth/me', roles: ROLES, successStatus: 200, call: (token) => withToken(request(context.app).get(API.me), token) },
+    { name: 'GET /api/stations', roles: ROLES, successStatus: 200, call: (token) => withToken(request(context.app).get(API.stations), token) },
+    {
+      name: 'GET /api/chart-forms',
+      roles: ROLES,
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.chartForms), token),
+    },
+    {
+      name: 'GET /api/scans',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.scans), token),
+    },
+    {
+      name: 'POST /api/scans',
+      roles: ['archivist'],
+      successStatus: 201,
+      call: async (token) =>
+        withToken(request(context.app).post(API.scans), token)
+          .field('stationId', stationId)
+          .field('chartFormId', chartFormId)
+          .field('periodStart', PERIOD_START)
+          .attach('file', await makePng(), 'chart.png'),
+      sideEffectCount: () => count('scan'),
+    },
+    {
+      name: 'GET /api/scans/:scanId',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.scan(scanId)), token),
+    },
+    {
+      name: 'GET /api/scans/:scanId/preview',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.scanPreview(scanId)), token),
+    },
+    {
+      name: 'POST /api/scans/:scanId/ink-lines',
+      roles: ['volunteer'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.scanInkLines(scanId)), token).send(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 8)),
+      sideEffectCount: () => count('ink_line'),
+    },
+    {
+      name: 'GET /api/series',
+      roles: ['climatologist', 'teacher'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.series).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
+    },
+    {
+      name: 'GET /api/series.csv',
+      roles: ['climatologist', 'teacher'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.seriesCsv).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
+    },
+    { name: 'GET /api/people', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.people), token) },
+  ];
+
+  const allowedCases = routes.flatMap((route) => route.roles.map((role) => [route.name, role] as const));
+  const refusedCases = routes.flatMap((route) => ROLES.filter((role) => !route.roles.includes(role)).map((role) => [route.name, role] as const));
+  const routeNamed = (name: string): RouteCase => routes.find((route) => route.name === name) as RouteCase;
+
+  beforeAll(async () => {
+    context = await createTestContext();
+    await truncateTables(context.db);
+    for (const role of ROLES) people[role] = await createPerson(context.db, [role]);
+    stationId = (await createStation(context.db)).id;
+    chartFormId = (await createChartForm(context.db)).id;
+    const tempPath = context.storage.newTempPath('.upload');
+    await fs.writeFile(tempPath, await makePng(300, 200));
+    const scan = await scansService.uploadScan(
+      context.db,
+      context.storage,
+      { tempPath, originalName: 'role-table.png' },
+      { stationId, chartFormId, periodStart: new Date(PERIOD_START) },
+      people.archivist.id,
+    );
+    scanId = scan.id;
+  });
+
+  afterAll(async () => {
+    await truncateTables(context.db);
+    await context.close();
+  });
+
+  it.each(routes.map((route) => [route.name]))('when %s is called without a token, then it answers 401 unauthenticated', async (name) => {
+    const route = routeNamed(name);
+    const before = await route.sideEffectCount?.();
+
+    const response = await route.call(null);
+
+    expect(response.status).toBe(401);
+    expect(response.body.error.code).toBe('unauthenticated');
+    expect(await route.sideEffectCount?.()).toBe(before);
+  });
+
+  it.each(refusedCases)('when %s is called by a %s, then it answers 403 forbidden and changes nothing', async (name, role) => {
+    const route = routeNamed(name);
+    const before = await route.sideEffectCount?.();
+
+    const response = await route.call(people[role].token);
+
+    expect(response.status).toBe(403);
+    expect(response.body.error.code).toBe('forbidden');
+    expect(await route.sideEffectCount?.()).toBe(before);
+  });
+
+  it.each(allowedCases)('when %s is called by a %s, then it succeeds', async (name, role) => {
+    const route = routeNamed(name);
+    const before = await route.sideEffectCount?.();
+
+    const response = await route.call(people[role].token);
+
+    expect(response.status).toBe(route.successStatus);
+    if (before !== undefined) expect(await route.sideEffectCount?.()).toBe(before + 1);
+  });
+
+  it('when a person holds two roles, then they may call the routes of either', async () => {
+    const both = await createPerson(context.db, ['archivist', 'climatologist']);
+
+    const scans = await request(context.app).get(API.scans).set('Authorization', `Bearer ${both.token}`);
+    const series = await request(context.app)
+      .get(API.series)
+      .query({ stationId, from: '2026-03-01', to: '2026-03-08' })
+      .set('Authorization', `Bearer ${both.token}`);
+    const people = await request(context.app).get(API.people).set('Authorization', `Bearer ${both.token}`);
+
+    expect(scans.status).toBe(200);
+    expect(series.status).toBe(200);
+    expect(people.status).toBe(403);
+  });
+
+  it('when the public routes are called without a token, then they answer', async () => {
+    const health = await request(context.app).get(API.health);
+    const signIn = await request(context.app).post(API.signIn).send({ email: people.teacher.email, password: people.teacher.password });
+
+    expect(health.status).toBe(200);
+    expect(signIn.status).toBe(200);
+    expect(signIn.body.person.roles).toEqual(['teacher']);
+  });
+});
