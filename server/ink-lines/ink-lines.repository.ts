@@ -1,25 +1,33 @@
 import type { InkLineStatus, KnotInput, PinInput } from '@shared/api/ink-lines';
 import type { RegistrationFit } from '@shared/domain/registration';
 import type { DbOrTrx } from '../db/database';
+import { PG_FOREIGN_KEY_VIOLATION, pgErrorCode } from '../db/pg-errors';
+import { AppError, HTTP } from '../errors/app-error';
 
 export async function insertPinSet(
   db: DbOrTrx,
   pinSet: { scanId: string; createdBy: string; pins: PinInput[]; fit: RegistrationFit },
 ): Promise<string> {
-  const { id } = await db
-    .insertInto('pin_set')
-    .values({
-      scan_id: pinSet.scanId,
-      created_by: pinSet.createdBy,
-      pins: JSON.stringify(pinSet.pins),
-      model: pinSet.fit.model,
-      rms_hpa: pinSet.fit.rmsHpa,
-      rms_minutes: pinSet.fit.rmsMinutes,
-      fit: JSON.stringify(pinSet.fit),
-    })
-    .returning('id')
-    .executeTakeFirstOrThrow();
-  return id;
+  try {
+    const { id } = await db
+      .insertInto('pin_set')
+      .values({
+        scan_id: pinSet.scanId,
+        created_by: pinSet.createdBy,
+        pins: JSON.stringify(pinSet.pins),
+        model: pinSet.fit.model,
+        rms_hpa: pinSet.fit.rmsHpa,
+        rms_minutes: pinSet.fit.rmsMinutes,
+        fit: JSON.stringify(pinSet.fit),
+      })
+      .returning('id')
+      .executeTakeFirstOrThrow();
+    return id;
+  } catch (error) {
+    // The scan row is locked by the caller, so the only reference that can vanish is the person.
+    if (pgErrorCode(error) === PG_FOREIGN_KEY_VIOLATION) throw new AppError(HTTP.unauthorized, 'unauthenticated', 'Your account no longer exists.');
+    throw error;
+  }
 }
 
 export async function insertInkLine(

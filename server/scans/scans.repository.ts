@@ -2,7 +2,8 @@ import type { PageQuery } from '@shared/api/paging';
 import type { ScanDetail, ScanSortKey, ScanStatus, ScanSummary } from '@shared/api/scans';
 import type { Insertable } from 'kysely';
 import type { DbOrTrx } from '../db/database';
-import { PG_UNIQUE_VIOLATION, pgErrorCode } from '../db/pg-errors';
+import { AppError, HTTP } from '../errors/app-error';
+import { PG_FOREIGN_KEY_VIOLATION, PG_UNIQUE_VIOLATION, pgConstraint, pgErrorCode } from '../db/pg-errors';
 import type { ScanTable } from './scan.table';
 
 const SORT_COLUMNS = {
@@ -121,9 +122,19 @@ export async function insertScan(
     const { id } = await db.insertInto('scan').values(scan).returning('id').executeTakeFirstOrThrow();
     return { scanId: id };
   } catch (error) {
+    if (pgErrorCode(error) === PG_FOREIGN_KEY_VIOLATION) throw missingReference(pgConstraint(error));
     if (pgErrorCode(error) !== PG_UNIQUE_VIOLATION) throw error;
     return { duplicateOf: await findScanIdBySha256(db, scan.sha256) };
   }
+}
+
+/** A row the scan points at was removed between the service's checks and the insert. */
+function missingReference(constraint: string | undefined): AppError {
+  if (constraint === 'scan_station_id_fkey') return new AppError(HTTP.notFound, 'station_not_found', 'There is no station with this id.');
+  if (constraint === 'scan_chart_form_id_fkey') {
+    return new AppError(HTTP.notFound, 'chart_form_not_found', 'There is no chart form with this id.');
+  }
+  return new AppError(HTTP.unauthorized, 'unauthenticated', 'Your account no longer exists.');
 }
 
 export async function updateScanStatus(db: DbOrTrx, scanId: string, status: ScanStatus): Promise<void> {

@@ -172,6 +172,18 @@ describe('handing in an ink line', () => {
     expect(await countRows('ink_line')).toBe(0);
   });
 
+  it("when the volunteer's account was removed after sign-in, then it answers 401 and stores nothing", async () => {
+    await context.db.deleteFrom('person').where('id', '=', volunteer.id).execute();
+
+    const response = await handIn(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START));
+
+    expect(response.status).toBe(401);
+    expect(response.body.error.code).toBe('unauthenticated');
+    expect(await countRows('pin_set')).toBe(0);
+    const scan = await context.db.selectFrom('scan').select('status').where('id', '=', scanId).executeTakeFirstOrThrow();
+    expect(scan.status).toBe('ready_to_trace');
+  });
+
   it('when a traced scan gets a second trace, then both ink lines and their points are kept', async () => {
     const draft = syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 6);
     const first = await handIn(draft);

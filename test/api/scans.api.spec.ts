@@ -183,6 +183,19 @@ describe('scan upload', () => {
     expect(response.body.error.code).toBe('chart_form_not_found');
   });
 
+  it('when the row cannot be written after the file was kept, then the new master and preview are removed', async () => {
+    // The uploader's account is removed after their token was issued: the insert fails on its reference.
+    await context.db.deleteFrom('person').where('id', '=', archivist.id).execute();
+
+    const response = await upload(await makePng(), 'orphan.png');
+
+    expect(response.status).toBe(401);
+    expect(response.body.error.code).toBe('unauthenticated');
+    expect(await scanRowCount()).toBe(0);
+    expect(await listFiles(path.join(context.storage.rootDir, 'masters'))).toEqual([]);
+    expect(await listFiles(path.join(context.storage.rootDir, 'previews'))).toEqual([]);
+  });
+
   it('when a scan is larger than the preview size, then its preview is a JPEG with the longest side 2400 px', async () => {
     const uploaded = await upload(await makePng(3000, 300), 'wide.png');
 
