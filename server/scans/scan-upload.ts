@@ -10,10 +10,14 @@ import type { Storage } from '../storage/storage';
  * The temp file is removed once the response is over, whatever happened to it.
  */
 export function receiveScanFile(storage: Storage, maxUploadBytes: number): RequestHandler[] {
-  const upload = multer({
+  // multer reads defParamCharset; @types/multer 2.0.0 does not list it yet.
+  const options: multer.Options & { defParamCharset: string } = {
     storage: multer.diskStorage({ destination: storage.tempDir, filename: (_req, _file, done) => done(null, `${randomUUID()}.upload`) }),
     limits: { fileSize: maxUploadBytes, files: 1, fields: 10, fieldSize: 64 * 1024 },
-  });
+    // Browsers send the file name as UTF-8; busboy's default latin1 would garble "Kestrel–week 10.png".
+    defParamCharset: 'utf8',
+  };
+  const upload = multer(options);
   const removeTempFileAfterResponse: RequestHandler = (req, res, next) => {
     const tempPath = req.file?.path;
     if (tempPath) res.on('close', () => fs.rm(tempPath, { force: true }, () => undefined));

@@ -78,14 +78,14 @@ describe('scan upload', () => {
     expect(await listFiles(path.join(context.storage.rootDir, 'tmp'))).toEqual([]);
   });
 
-  it('when a JPEG is uploaded, then it is kept as image/jpeg with a .jpg master', async () => {
+  it('when a JPEG with a UTF-8 name is uploaded, then it is kept as image/jpeg with a .jpg master and its name intact', async () => {
     const jpeg = await makeJpeg(120, 90);
     const sha256 = createHash('sha256').update(jpeg).digest('hex');
 
-    const response = await upload(jpeg, 'sbs-day.jpeg');
+    const response = await upload(jpeg, 'Saltmere–day 3.jpeg');
 
     expect(response.status).toBe(201);
-    expect(response.body).toMatchObject({ mediaType: 'image/jpeg', widthPx: 120, heightPx: 90, sha256 });
+    expect(response.body).toMatchObject({ mediaType: 'image/jpeg', widthPx: 120, heightPx: 90, sha256, originalName: 'Saltmere–day 3.jpeg' });
     expect(await listFiles(path.join(context.storage.rootDir, 'masters'))).toEqual([`${sha256.slice(0, 2)}/${sha256}.jpg`]);
   });
 
