@@ -1,4 +1,3 @@
-import { DERIVED_CAUTION } from './derived-caution';
 import { findFrontCandidates } from './front-candidates';
 import type { PressureAtTime } from './pressure-tendency';
 
@@ -87,11 +86,5 @@ describe('findFrontCandidates', () => {
     const candidates = findFrontCandidates(points).filter((c) => c.kind === 'front');
 
     expect(candidates).toEqual([]);
-  });
-});
-
-describe('DERIVED_CAUTION', () => {
-  it.each<string>(['research', 'teaching', 'aviation', 'navigation', 'official observations'])('when shown, then it mentions %s', (word) => {
-    expect(DERIVED_CAUTION).toContain(word);
   });
 });

@@ -1,9 +1,12 @@
 import { type ChartForm, chartHeightMm, checkChartForm } from './chart-form';
 import { type ChartReading, paperFromReading, readingFromPaper } from './chart-geometry';
-import { applyHomography, fitAffine, fitProjective, fitSimilarity, invert3x3, type PlanePoint, sumSquaredError } from './homography';
+import { applyHomography, invert3x3, type PlanePoint, sumSquaredError } from './homography';
+import { findOutlierPins } from './pin-outliers';
 import { toHpa } from './pressure-units';
 import { findRadiusCurvature } from './radius-search';
-import { flagOutliers } from './outliers';
+import { fitTransform, MIN_PINS, PARAMETER_COUNT, paperPoints, type RegistrationModel } from './registration-model';
+
+export type { RegistrationModel };
 
 /** A pin: a scan pixel (x right, y down) with the reading typed for it; hours after the chart-start line, pressure in the form's unit. */
 export interface RegistrationPin {
@@ -12,9 +15,6 @@ export interface RegistrationPin {
   hours: number;
   pressure: number;
 }
-
-/** Paper → pixel transform family: similarity (4 parameters), affine (6) or projective (8). */
-export type RegistrationModel = 'similarity' | 'affine' | 'projective';
 
 /** One pin's residual: fitted reading at the pin's pixel minus its typed reading (form unit, hPa, minutes). */
 export interface PinResidual {
@@ -65,22 +65,18 @@ export interface RegistrationOptions {
   fitRadius?: boolean;
 }
 
-const MIN_PINS: Record<RegistrationModel, number> = { similarity: 3, affine: 3, projective: 4 };
-const PARAMETER_COUNT: Record<RegistrationModel, number> = { similarity: 4, affine: 6, projective: 8 };
-
 // Beyond these the pins cannot describe one chart: the RMS would exceed a tenth of the printed range.
 const ABSURD_RMS_FRACTION = 0.1;
-// Pins closer than this in pixels are "the same place".
-const SAME_PIXEL_PX = 1;
 // Readings closer than this on paper are "the same reading".
 const SAME_READING_MM = 0.01;
 
 /**
- * Model chosen by pin count (pins ≥ 0): 3 → similarity, 4–5 → affine, ≥ 6 → projective. Each choice keeps
- * at least two spare equations, so the residuals can show a bad pin instead of being absorbed by the fit.
+ * Model chosen by pin count (pins ≥ 0): 3 → similarity, 4–9 → affine, ≥ 10 → projective. Each choice leaves
+ * enough spare equations that a bad pin shows (findOutlierPins needs the other pins to hold twice the model's
+ * equations) instead of the fit absorbing it.
  */
 export function chooseRegistrationModel(pinCount: number): RegistrationModel {
-  if (pinCount >= 6) return 'projective';
+  if (pinCount >= 10) return 'projective';
   if (pinCount >= 4) return 'affine';
   return 'similarity';
 }
@@ -101,7 +97,20 @@ export function canFitRadius(pins: RegistrationPin[], model: RegistrationModel):
 export function fitRegistration(form: ChartForm, pins: RegistrationPin[], options: RegistrationOptions = {}): RegistrationFit {
   checkFormForRegistration(form);
   checkPinValues(pins);
-  const model = options.model ?? chooseRegistrationModel(pins.length);
+  if (options.model !== undefined) return fitWithModel(form, pins, options.model, options.fitRadius);
+  const model = chooseRegistrationModel(pins.length);
+  try {
+    return fitWithModel(form, pins, model, options.fitRadius);
+  } catch (error) {
+    // A chosen (not asked-for) projective model that the pins cannot fix plausibly falls back to affine.
+    if (model === 'projective' && error instanceof RegistrationError && error.code === 'collinear_pins') {
+      return fitWithModel(form, pins, 'affine', options.fitRadius);
+    }
+    throw error;
+  }
+}
+
+function fitWithModel(form: ChartForm, pins: RegistrationPin[], model: RegistrationModel, fitRadius: boolean | undefined): RegistrationFit {
   if (pins.length < MIN_PINS[model]) {
     throw new RegistrationError('too_few_pins', `a ${model} registration needs at least ${MIN_PINS[model]} pins; ${pins.length} given`);
   }
@@ -114,7 +123,7 @@ export function fitRegistration(form: ChartForm, pins: RegistrationPin[], option
     throw new RegistrationError('collinear_pins', 'the pins lie on one line of the scan; place at least one pin off that line');
   }
 
-  const isRadiusFitted = options.fitRadius ?? (form.penArmRadiusMm === null && canFitRadius(pins, model));
+  const isRadiusFitted = fitRadius ?? (form.penArmRadiusMm === null && canFitRadius(pins, model));
   if (isRadiusFitted && !canFitRadius(pins, model)) {
     throw new RegistrationError(
       'too_few_pins',
@@ -122,9 +131,12 @@ export function fitRegistration(form: ChartForm, pins: RegistrationPin[], option
     );
   }
   const radiusMm = isRadiusFitted ? fitRadiusMm(form, pins, pixels, model) : form.penArmRadiusMm;
-  const matrix = fitTransform(model, paperPoints(form, pins, radiusMm), pixels);
+  const matrix = fitTransform(form, model, paperPoints(form, pins, radiusMm), pixels);
   if (matrix === null) {
-    throw new RegistrationError('collinear_pins', `the pins do not fix a ${model} transform (too many on one line); spread them over the chart`);
+    throw new RegistrationError(
+      'collinear_pins',
+      `the pins do not fix a ${model} transform (too many on one line, or a projective fit that would fold the chart); spread them over the chart`,
+    );
   }
 
   const fit: RegistrationFit = { model, paperToPixel: matrix, penArmRadiusMm: radiusMm, isRadiusFitted, residuals: [], rmsHpa: 0, rmsMinutes: 0 };
@@ -167,20 +179,42 @@ function checkPinValues(pins: RegistrationPin[]): void {
   });
 }
 
+/**
+ * Two pins contradict each other when they sit ten times closer on the scan than their readings are on paper
+ * (one place, two readings), or when one reading sits at two places more than 1 mm apart. The scan scale
+ * (px per mm) is the median over pin pairs, so the test does not depend on the scan resolution.
+ */
 function checkContradictions(form: ChartForm, pins: RegistrationPin[]): void {
   const paper = pins.map((p) => toPlane(paperFromReading(form, p)));
+  const pairs: { i: number; j: number; pixelDistance: number; paperDistance: number }[] = [];
   for (let i = 0; i < pins.length; i++) {
     for (let j = i + 1; j < pins.length; j++) {
-      const pixelDistance = Math.hypot(pins[i].xPx - pins[j].xPx, pins[i].yPx - pins[j].yPx);
-      const paperDistance = Math.hypot(paper[i].x - paper[j].x, paper[i].y - paper[j].y);
-      if (pixelDistance < SAME_PIXEL_PX && paperDistance > SAME_READING_MM) {
-        throw new RegistrationError('contradictory_pins', `pins ${i + 1} and ${j + 1} sit on the same pixel with different readings`);
-      }
-      if (paperDistance <= SAME_READING_MM && pixelDistance >= SAME_PIXEL_PX) {
-        throw new RegistrationError('contradictory_pins', `pins ${i + 1} and ${j + 1} have the same reading at different places`);
-      }
+      pairs.push({
+        i,
+        j,
+        pixelDistance: Math.hypot(pins[i].xPx - pins[j].xPx, pins[i].yPx - pins[j].yPx),
+        paperDistance: Math.hypot(paper[i].x - paper[j].x, paper[i].y - paper[j].y),
+      });
     }
   }
+  const ratios = pairs.filter((p) => p.paperDistance > 1).map((p) => p.pixelDistance / p.paperDistance);
+  const pxPerMm = ratios.length > 0 ? median(ratios) : null;
+  for (const { i, j, pixelDistance, paperDistance } of pairs) {
+    const isSamePlace = pxPerMm === null ? pixelDistance < 1 : pixelDistance < 0.1 * pxPerMm * paperDistance;
+    if (paperDistance > SAME_READING_MM && isSamePlace) {
+      throw new RegistrationError('contradictory_pins', `pins ${i + 1} and ${j + 1} sit at the same place with different readings`);
+    }
+    const isApart = pxPerMm === null ? pixelDistance >= 1 : pixelDistance > pxPerMm * 1;
+    if (paperDistance <= SAME_READING_MM && isApart) {
+      throw new RegistrationError('contradictory_pins', `pins ${i + 1} and ${j + 1} have the same reading at different places`);
+    }
+  }
+}
+
+function median(values: number[]): number {
+  const sorted = values.slice().sort((a, b) => a - b);
+  const mid = Math.floor(sorted.length / 2);
+  return sorted.length % 2 === 1 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
 }
 
 function checkAbsurdRms(form: ChartForm, fit: RegistrationFit): void {
@@ -214,17 +248,11 @@ function isCollinear(points: PlanePoint[]): boolean {
   return !(largest > 0) || smallest <= largest * 1e-6;
 }
 
-function fitTransform(model: RegistrationModel, paper: PlanePoint[], pixels: PlanePoint[]): number[] | null {
-  if (model === 'similarity') return fitSimilarity(paper, pixels);
-  if (model === 'affine') return fitAffine(paper, pixels);
-  return fitProjective(paper, pixels);
-}
-
 function fitRadiusMm(form: ChartForm, pins: RegistrationPin[], pixels: PlanePoint[], model: RegistrationModel): number | null {
   const maxCurvature = 2 / chartHeightMm(form);
   const sumSquared = (curvature: number) => {
     const paper = paperPoints(form, pins, curvature > 0 ? 1 / curvature : null);
-    const matrix = fitTransform(model, paper, pixels);
+    const matrix = fitTransform(form, model, paper, pixels);
     return matrix === null ? Number.POSITIVE_INFINITY : sumSquaredError(matrix, paper, pixels);
   };
   const curvature = findRadiusCurvature(sumSquared, maxCurvature);
@@ -238,20 +266,15 @@ function fitRadiusMm(form: ChartForm, pins: RegistrationPin[], pixels: PlanePoin
   return curvature > maxCurvature * 1e-6 ? 1 / curvature : null;
 }
 
-function paperPoints(form: ChartForm, pins: RegistrationPin[], radiusMm: number | null): PlanePoint[] {
-  return pins.map((p) => toPlane(paperFromReading(form, p, radiusMm)));
-}
-
 function pinResiduals(form: ChartForm, fit: RegistrationFit, pins: RegistrationPin[]): PinResidual[] {
   const raw = pins.map((pin, index) => {
     const reading = pixelToReading(form, fit, pin.xPx, pin.yPx);
     const pressure = reading.pressure - pin.pressure;
     const hours = reading.hours - pin.hours;
-    return { index, pressure, pressureHpa: toHpa(pressure, form.pressureUnit), minutes: hours * 60, distanceMm: Math.hypot(hours * form.mmPerHour, pressure * form.mmPerUnit) };
+    return { index, pressure, pressureHpa: toHpa(pressure, form.pressureUnit), minutes: hours * 60 };
   });
-  const spareEquations = 2 * pins.length - PARAMETER_COUNT[fit.model] - (fit.isRadiusFitted ? 1 : 0);
-  const outliers = spareEquations >= 2 ? flagOutliers(raw.map((r) => r.distanceMm)) : raw.map(() => false);
-  return raw.map(({ index, pressure, pressureHpa, minutes }) => ({ index, pressure, pressureHpa, minutes, isOutlier: outliers[index] }));
+  const outliers = findOutlierPins(form, fit.model, fit.penArmRadiusMm, pins);
+  return raw.map(({ index, pressure, pressureHpa, minutes }) => ({ index, pressure, pressureHpa, minutes, isOutlier: outliers.has(index) }));
 }
 
 function rootMeanSquare(values: number[]): number {
