@@ -37,6 +37,8 @@ describe('resampleRegular', () => {
     ['an off-scale sample on either side', [sample(50, 1050, { isOffScale: true }), sample(70, 1050)], { flag: 'off_scale', pressureHpa: 1050, uncertaintyHpa: null }],
     ['a low-confidence sample on either side', [sample(50, 1000), sample(70, 1002, { confidence: 0.2 })], { flag: 'suspect', pressureHpa: 1001 }],
     ['confidences at or above the threshold', [sample(50, 1000, { confidence: 0.5 }), sample(70, 1002, { confidence: 0.9 })], { flag: 'ok' }],
+    ['a bracketing span marked as a bridge, though short', [sample(50, 1000, { bridgesToNext: true }), sample(70, 1002)], { flag: 'interpolated', pressureHpa: 1001 }],
+    ['a bridge mark on the later sample only (it bridges onwards, not back)', [sample(50, 1000), sample(70, 1002, { bridgesToNext: true })], { flag: 'ok' }],
     ['a sample exactly on the clock time with far neighbours', [sample(-200, 990), sample(60, 1000), sample(300, 1010)], { flag: 'ok', pressureHpa: 1000 }],
   ])('when the 01:00 point has %s, then its flag and value follow', (_label, samples, expected) => {
     const points = resampleRegular(samples, { stepMinutes: 60, maxGapMinutes: 180, baseUncertaintyHpa: 0.4 });

@@ -8,6 +8,8 @@ export interface TimedPressure {
   pressureHpa: number;
   confidence?: number;
   isOffScale?: boolean;
+  /** The span from this sample to the next is a bridge (the ink line joined across a gap on purpose). */
+  bridgesToNext?: boolean;
 }
 
 /** One point of a regular series: exact clock time (epoch ms), hPa or null in a gap, quality flag, uncertainty hPa or null. */
@@ -36,7 +38,8 @@ const MS_PER_MINUTE = 60_000;
 
 /**
  * Resamples ink-line samples (any order) to exact clock times within their span, by linear interpolation
- * between the bracketing samples. Flag precedence: gap > off_scale > suspect > interpolated > ok.
+ * between the bracketing samples. A point is 'interpolated' when its bracketing span is a bridge or longer than
+ * maxOkSpanMinutes. Flag precedence: gap > off_scale > suspect > interpolated > ok.
  */
 export function resampleRegular(samples: TimedPressure[], options: ResampleOptions): RegularPoint[] {
   const { stepMinutes, maxGapMinutes } = options;
@@ -73,7 +76,7 @@ export function resampleRegular(samples: TimedPressure[], options: ResampleOptio
     }
     const weight = (timeMs - before.timeMs) / spanMs;
     const pressureHpa = before.pressureHpa + weight * (after.pressureHpa - before.pressureHpa);
-    points.push({ timeMs, pressureHpa, ...flagFor([before, after], spanMs > maxOkSpanMs) });
+    points.push({ timeMs, pressureHpa, ...flagFor([before, after], before.bridgesToNext === true || spanMs > maxOkSpanMs) });
   }
   return points;
 
