@@ -7,6 +7,7 @@ import {
   provideBrowserGlobalErrorListeners,
   provideZonelessChangeDetection,
 } from '@angular/core';
+import { MAT_FORM_FIELD_DEFAULT_OPTIONS, MatFormFieldDefaultOptions } from '@angular/material/form-field';
 import { MatIconRegistry } from '@angular/material/icon';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
 
@@ -24,6 +25,11 @@ export const appConfig: ApplicationConfig = {
     provideHttpClient(withInterceptors([authTokenInterceptor, httpErrorInterceptor])),
     provideRouter(routes, withComponentInputBinding()),
     { provide: ErrorHandler, useClass: AppErrorHandler },
+    // Outlined fields keep their labels at the compact density (filled ones hide them below -1).
+    {
+      provide: MAT_FORM_FIELD_DEFAULT_OPTIONS,
+      useValue: { appearance: 'outline', subscriptSizing: 'dynamic' } satisfies MatFormFieldDefaultOptions,
+    },
     provideAppInitializer(() => {
       // Icons come from the bundled material-symbols font, not the Material Icons default.
       inject(MatIconRegistry).setDefaultFontSetClass('material-symbols-outlined');

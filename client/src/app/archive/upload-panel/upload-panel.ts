@@ -11,7 +11,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import type { ScanDetail } from '@shared/api/scans';
-import { map } from 'rxjs';
+import { catchError, map, of } from 'rxjs';
 
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ScansApi } from '../../core/api/scans-api';
@@ -38,8 +38,8 @@ export class UploadPanel {
   /** Emits the scan the server stored, so the catalogue can refresh. */
   readonly stored = output<ScanDetail>();
 
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items)), { initialValue: [] });
-  protected readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items)), { initialValue: [] });
+  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
   protected readonly form = inject(NonNullableFormBuilder).group({
     stationId: ['', Validators.required],
     chartFormId: ['', Validators.required],

@@ -60,7 +60,7 @@ export class BenchPage {
   protected readonly previewUrl = toSignal(
     toObservable(this.scanId).pipe(switchMap((scanId) => this.scansApi.preview(scanId).pipe(map((blob) => this.previewUrls.replace(blob)), catchError(() => of(null))))),
   );
-  private readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items)), { initialValue: [] });
+  private readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
   protected readonly chartForm = computed(() => this.chartForms().find((form) => form.id === this.scan()?.chartFormId) ?? null);
 
   protected readonly isHandingIn = signal(false);

@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import type { SeriesResponse } from '@shared/api/series';
-import { map } from 'rxjs';
+import { catchError, map, of } from 'rxjs';
 
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
@@ -41,7 +41,7 @@ export class SeriesPage {
   private readonly destroyRef = inject(DestroyRef);
   private readonly document = inject(DOCUMENT);
 
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items)), { initialValue: [] });
+  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
   protected readonly form = inject(NonNullableFormBuilder).group(
     {
       stationId: ['', Validators.required],
