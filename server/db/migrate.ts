@@ -2,7 +2,7 @@ import { type Kysely, type MigrationResultSet, Migrator } from 'kysely';
 import { MIGRATIONS } from '../../migrations';
 
 /** Brings the schema up to the newest migration; throws (naming the migration) if one fails. */
-export async function migrateToLatest(db: Kysely<any>): Promise<MigrationResultSet> {
+export async function migrateToLatest<DB>(db: Kysely<DB>): Promise<MigrationResultSet> {
   const migrator = new Migrator({ db, provider: { getMigrations: async () => MIGRATIONS } });
   const resultSet = await migrator.migrateToLatest();
   if (resultSet.error) {

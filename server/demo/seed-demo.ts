@@ -2,12 +2,14 @@ import fs from 'node:fs/promises';
 import type { Logger } from 'pino';
 import sharp from 'sharp';
 import type { ChartFormSummary } from '@shared/api/chart-forms';
+import type { ScanDetail } from '@shared/api/scans';
 import type { StationSummary } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
 import { fitRegistration, readingToPixel } from '@shared/domain/registration';
 import { hashPassword } from '../auth/passwords';
 import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
 import type { Db } from '../db/database';
+import { AppError } from '../errors/app-error';
 import { toRegistrationPins } from '../ink-lines/ink-line-reading';
 import * as inkLinesService from '../ink-lines/ink-lines.service';
 import * as peopleRepository from '../people/people.repository';
@@ -58,6 +60,27 @@ async function stageFile(storage: Storage, sourcePath: string): Promise<string> 
 }
 
 /**
+ * Uploads through the route's service; a scan left by an earlier run that stopped half-way is reused,
+ * so a failed seed can simply be run again.
+ */
+async function uploadOrReuse(
+  db: Db,
+  storage: Storage,
+  file: scansService.ReceivedFile,
+  fields: scansService.ParsedUploadFields,
+  uploadedBy: string,
+): Promise<ScanDetail> {
+  try {
+    return await scansService.uploadScan(db, storage, file, fields, uploadedBy);
+  } catch (error) {
+    const isDuplicate = error instanceof AppError && error.code === 'duplicate_scan';
+    const existingId = isDuplicate ? (error.details as { scanId?: string }).scanId : undefined;
+    if (!existingId) throw error;
+    return scansService.getScan(db, existingId);
+  }
+}
+
+/**
  * Knots along the true series, placed where the registered chart would have them: the demo's handed-in
  * line reads back (to the fit's accuracy) the series the sample was drawn from.
  */
@@ -90,7 +113,7 @@ export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOption
     const archivistId = personIds.get('archivist@isallo.test') as string;
     const volunteerId = personIds.get('volunteer@isallo.test') as string;
     const fields = { stationId: kestrelRidge.id, chartFormId: weeklyForm.id, periodStart: new Date(sample.chartStart) };
-    const ready = await scansService.uploadScan(
+    const ready = await uploadOrReuse(
       db,
       storage,
       { tempPath: await stageFile(storage, sample.imagePath), originalName: 'demo-weekly.png' },
@@ -103,7 +126,7 @@ export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOption
       // Same pixels, different bytes (higher compression), so the content-hash check sees a new scan.
       const copyPath = storage.newTempPath('.upload');
       await sharp(sample.imagePath).png({ compressionLevel: 9, adaptiveFiltering: true }).toFile(copyPath);
-      const traced = await scansService.uploadScan(
+      const traced = await uploadOrReuse(
         db,
         storage,
         { tempPath: copyPath, originalName: 'demo-weekly-traced.png' },
@@ -111,7 +134,9 @@ export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOption
         archivistId,
       );
       const chartStartMs = Date.parse(sample.chartStart);
-      await inkLinesService.handInInkLine(db, traced.id, { pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, volunteerId);
+      if (traced.inkLineCount === 0) {
+        await inkLinesService.handInInkLine(db, traced.id, { pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, volunteerId);
+      }
       result.tracedScanId = traced.id;
     }
   }

@@ -73,4 +73,16 @@ describe('demo scenario seed', () => {
     // The sample is a weekly chart: well over a hundred hourly points.
     expect(count).toBeGreaterThan(100);
   });
+
+  it('when an earlier seed stopped after its uploads, then running it again finishes without a second copy', async () => {
+    const first = await seedDemo(context.db, context.storage, { fixturesDir: FIXTURES_DIR });
+    await context.db.deleteFrom('demo_seed').execute();
+    await context.db.deleteFrom('ink_line').execute();
+
+    const again = await seedDemo(context.db, context.storage, { fixturesDir: FIXTURES_DIR });
+
+    expect(again).toEqual({ ...first, isSeeded: true });
+    expect(await context.db.selectFrom('scan').select('id').execute()).toHaveLength(2);
+    expect(await context.db.selectFrom('ink_line').select('id').execute()).toHaveLength(1);
+  });
 });
