@@ -15,6 +15,8 @@ export function findRadiusCurvature(error: (curvature: number) => number, maxCur
   }
   let low = (maxCurvature * Math.max(0, bestIndex - 1)) / steps;
   let high = (maxCurvature * Math.min(steps, bestIndex + 1)) / steps;
+  // The bounds themselves stay candidates, so that straight lines (0) and R = H/2 are found exactly.
+  const bounds = [low, high];
   const ratio = (Math.sqrt(5) - 1) / 2;
   let a = high - ratio * (high - low);
   let b = low + ratio * (high - low);
@@ -35,6 +37,6 @@ export function findRadiusCurvature(error: (curvature: number) => number, maxCur
       eb = error(b);
     }
   }
-  const candidates = [low, (low + high) / 2, high];
+  const candidates = [...bounds, low, (low + high) / 2, high];
   return candidates.reduce((best, c) => (error(c) < error(best) ? c : best));
 }
