@@ -4,6 +4,7 @@
  * mbar = hPa = 100 Pa exactly, kPa = 1000 Pa exactly.
  */
 export const PRESSURE_UNITS = ['hPa', 'mbar', 'kPa', 'inHg', 'mmHg'] as const;
+/** One of PRESSURE_UNITS. */
 export type PressureUnit = (typeof PRESSURE_UNITS)[number];
 
 const PASCALS_PER_UNIT: Record<PressureUnit, number> = {
@@ -14,6 +15,7 @@ const PASCALS_PER_UNIT: Record<PressureUnit, number> = {
   mmHg: 133.322387415,
 };
 
+/** True when x is one of PRESSURE_UNITS (exact, case-sensitive). */
 export function isPressureUnit(x: unknown): x is PressureUnit {
   return typeof x === 'string' && (PRESSURE_UNITS as readonly string[]).includes(x);
 }

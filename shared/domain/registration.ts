@@ -6,6 +6,7 @@ import { toHpa } from './pressure-units';
 import { findRadiusCurvature } from './radius-search';
 import { fitTransform, MIN_PINS, PARAMETER_COUNT, paperPoints, type RegistrationModel } from './registration-model';
 
+/** Re-exported from registration-model.ts: 'similarity' | 'affine' | 'projective'. */
 export type { RegistrationModel };
 
 /** A pin: a scan pixel (x right, y down) with the reading typed for it; hours after the chart-start line, pressure in the form's unit. */

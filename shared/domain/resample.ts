@@ -1,5 +1,6 @@
 import type { SeriesFlag } from '../api/series';
 
+/** Re-exported from shared/api/series.ts: 'ok' | 'interpolated' | 'gap' | 'off_scale' | 'suspect'. */
 export type { SeriesFlag };
 
 /** One pressure sample along an ink line: UTC epoch ms, hPa, optional confidence 0–1 and off-scale mark. */
