@@ -30,7 +30,8 @@ const CLICK_SLOP_PX = 4;
  * with the wheel (about the cursor) or the +/- buttons. Emits clicks as preview-image pixels; the Bench
  * scales them to full-resolution scan pixels. The host element `scan-stage` carries the current view as
  * data-view-scale (screen px per FULL-resolution scan px) and data-view-x/-y (screen offset of scan pixel
- * 0,0 from the host's top-left), updated synchronously on every pan and zoom.
+ * 0,0 from the host's top-left), updated synchronously on every pan and zoom, and data-view-ready="true"
+ * once the preview is on the stage and its scale to the scan is known.
  */
 @Component({
   selector: 'isl-scan-stage',
@@ -176,6 +177,8 @@ export class ScanStage {
     host.setAttribute('data-view-scale', String(view.scale / scanPxPerPreviewPx));
     host.setAttribute('data-view-x', String(view.x));
     host.setAttribute('data-view-y', String(view.y));
+    // Until the preview is shown and its scale to the scan is known, the numbers above are placeholders.
+    host.setAttribute('data-view-ready', String(this.imageSize !== null && this.scanPxPerPreviewPx() !== null));
     this.zoomPercent.set(Math.round((100 * view.scale) / scanPxPerPreviewPx));
   }
 
