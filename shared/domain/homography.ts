@@ -6,9 +6,6 @@ export interface PlanePoint {
   y: number;
 }
 
-/** 3×3 identity, row-major. */
-export const IDENTITY_3X3: readonly number[] = [1, 0, 0, 0, 1, 0, 0, 0, 1];
-
 /** Applies a row-major 3×3 homography to a point; returns NaN coordinates for points mapped to infinity. */
 export function applyHomography(h: readonly number[], point: PlanePoint): PlanePoint {
   const w = h[6] * point.x + h[7] * point.y + h[8];
