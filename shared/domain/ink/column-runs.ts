@@ -3,11 +3,13 @@ import type { InkContrast } from './ink-contrast';
 import type { RawImage } from './raw-image';
 
 /**
- * Per image column, the runs of ink-scoring pixels found down that column: the candidates the path search
- * picks from. Flat typed arrays, `slots` entries per column; entry k of column i is at i·slots + k.
+ * Per sampled image column, the runs of ink-scoring pixels found down that column: the candidates the path
+ * search picks from. Flat typed arrays, `slots` entries per column; entry k of column i is at i·slots + k.
+ * Column i sits at pixel column x0 + i·step.
  */
 export interface ColumnRuns {
   x0: number;
+  step: number;
   columns: number;
   slots: number;
   count: Uint8Array;
@@ -16,7 +18,7 @@ export interface ColumnRuns {
   bottom: Float32Array;
   /** Score-weighted centre, continuous coordinates. */
   centre: Float32Array;
-  /** Sum and peak of the smoothed score over the run. */
+  /** Sum (per sampled row, scaled by the row step) and peak of the score over the run. */
   mass: Float32Array;
   peak: Float32Array;
 }
@@ -24,116 +26,92 @@ export interface ColumnRuns {
 /** Candidate runs kept per column; the rest (weakest first) are dropped. */
 export const RUN_SLOTS = 8;
 
-/**
- * Scores the window row by row (cache-friendly for interleaved pixels), smooths the score with a 3×3
- * binomial kernel to tame sensor noise and JPEG blocks, and closes runs down every column at once.
- * provisionalWidthPx only ranks runs for the slot list; the path search re-weighs them with the measured width.
- */
-export function findColumnRuns(image: RawImage, window: ChartWindow, contrast: InkContrast, provisionalWidthPx: number): ColumnRuns {
-  const columns = Math.max(0, window.x1 - window.x0);
-  const slots = RUN_SLOTS;
-  const runs: ColumnRuns = {
-    x0: window.x0,
+function emptyRuns(x0: number, step: number, columns: number): ColumnRuns {
+  const n = columns * RUN_SLOTS;
+  return {
+    x0,
+    step,
     columns,
-    slots,
+    slots: RUN_SLOTS,
     count: new Uint8Array(columns),
-    top: new Float32Array(columns * slots),
-    bottom: new Float32Array(columns * slots),
-    centre: new Float32Array(columns * slots),
-    mass: new Float32Array(columns * slots),
-    peak: new Float32Array(columns * slots),
+    top: new Float32Array(n),
+    bottom: new Float32Array(n),
+    centre: new Float32Array(n),
+    mass: new Float32Array(n),
+    peak: new Float32Array(n),
   };
+}
+
+/** Rank of a run for the slot list: half its mean over at least one line width, half its peak. */
+function rankOf(mass: number, length: number, peak: number, widthPx: number): number {
+  return 0.5 * (mass / Math.max(length, widthPx)) + 0.5 * peak;
+}
+
+/** Stores a finished run in column i, replacing the weakest run when the column is full. */
+function keepRun(runs: ColumnRuns, i: number, top: number, bottom: number, mass: number, moment: number, peak: number, widthPx: number): void {
+  const base = i * runs.slots;
+  let k = runs.count[i];
+  if (k === runs.slots) {
+    let weakest = 0;
+    let weakestRank = Infinity;
+    for (let s = 0; s < runs.slots; s++) {
+      const r = rankOf(runs.mass[base + s], runs.bottom[base + s] - runs.top[base + s], runs.peak[base + s], widthPx);
+      if (r < weakestRank) {
+        weakestRank = r;
+        weakest = s;
+      }
+    }
+    if (weakestRank >= rankOf(mass, bottom - top, peak, widthPx)) return;
+    k = weakest;
+  } else runs.count[i] = k + 1;
+  runs.top[base + k] = top;
+  runs.bottom[base + k] = bottom;
+  runs.centre[base + k] = mass > 0 ? moment / mass : (top + bottom) / 2;
+  runs.mass[base + k] = mass;
+  runs.peak[base + k] = peak;
+}
+
+/**
+ * Coarse pass: every `columnStep`-th column and `rowStep`-th row of the whole window, raw score, scanned row
+ * by row (cache-friendly for interleaved pixels). Finds where the line is, not its exact centre.
+ */
+export function findCoarseRuns(
+  image: RawImage,
+  window: ChartWindow,
+  contrast: InkContrast,
+  columnStep: number,
+  rowStep: number,
+  widthPx: number,
+): ColumnRuns {
+  const columns = Math.max(0, Math.ceil((window.x1 - window.x0) / columnStep));
+  const runs = emptyRuns(window.x0, columnStep, columns);
   if (columns === 0) return runs;
+  const top = new Int32Array(columns);
+  const bottom = new Int32Array(columns);
   let yMin = image.height;
   let yMax = 0;
   for (let i = 0; i < columns; i++) {
-    yMin = Math.min(yMin, window.rowTop[i]);
-    yMax = Math.max(yMax, window.rowBottom[i]);
+    top[i] = window.rowTop[i * columnStep];
+    bottom[i] = window.rowBottom[i * columnStep];
+    yMin = Math.min(yMin, top[i]);
+    yMax = Math.max(yMax, bottom[i]);
   }
-  if (yMax <= yMin) return runs;
-
   const { data, width, channels } = image;
   const { offset, threshold } = contrast;
   const isColour = channels >= 3;
   const wr = isColour ? contrast.wr : contrast.wr + contrast.wg + contrast.wb;
-  const wg = contrast.wg;
-  const wb = contrast.wb;
-  const rawRow = new Float32Array(columns + 2);
-  // Three horizontally smoothed rows, rotated: a = y − 2, b = y − 1, c = y.
-  let rowA = new Float32Array(columns);
-  let rowB = new Float32Array(columns);
-  let rowC = new Float32Array(columns);
+  const { wg, wb } = contrast;
   const runStart = new Int32Array(columns).fill(-1);
   const runMass = new Float64Array(columns);
   const runMoment = new Float64Array(columns);
   const runPeak = new Float32Array(columns);
-  const rowTop = window.rowTop;
-  const rowBottom = window.rowBottom;
-  const x0 = window.x0;
-  const left = Math.max(0, x0 - 1);
-  const right = Math.min(width, window.x1 + 1);
-
-  const closeRun = (i: number, endRow: number): void => {
-    const start = runStart[i];
-    runStart[i] = -1;
-    const length = endRow - start;
-    const mass = runMass[i];
-    const peak = runPeak[i];
-    const rank = 0.5 * (mass / Math.max(length, provisionalWidthPx)) + 0.5 * peak;
-    const base = i * slots;
-    let k = runs.count[i];
-    if (k === slots) {
-      // Full: replace the weakest if this run ranks above it.
-      let weakest = 0;
-      let weakestRank = Infinity;
-      for (let s = 0; s < slots; s++) {
-        const len = runs.bottom[base + s] - runs.top[base + s];
-        const r = 0.5 * (runs.mass[base + s] / Math.max(len, provisionalWidthPx)) + 0.5 * runs.peak[base + s];
-        if (r < weakestRank) {
-          weakestRank = r;
-          weakest = s;
-        }
-      }
-      if (weakestRank >= rank) return;
-      k = weakest;
-    } else runs.count[i] = k + 1;
-    runs.top[base + k] = start;
-    runs.bottom[base + k] = endRow;
-    runs.centre[base + k] = mass > 0 ? runMoment[i] / mass : (start + endRow) / 2;
-    runs.mass[base + k] = mass;
-    runs.peak[base + k] = peak;
-  };
-
-  const scoreRow = (y: number, out: Float32Array): void => {
-    if (y < 0 || y >= image.height) {
-      out.fill(0);
-      return;
-    }
-    rawRow.fill(0);
-    let k = (y * width + left) * channels;
-    for (let x = left; x < right; x++, k += channels) {
-      const s = isColour ? offset - (wr * data[k] + wg * data[k + 1] + wb * data[k + 2]) : offset - wr * data[k];
-      rawRow[x - x0 + 1] = s;
-    }
-    for (let i = 0; i < columns; i++) out[i] = 0.25 * rawRow[i] + 0.5 * rawRow[i + 1] + 0.25 * rawRow[i + 2];
-  };
-
-  scoreRow(yMin - 1, rowB);
-  scoreRow(yMin, rowC);
-  for (let y = yMin; y < yMax; y++) {
-    const recycled = rowA;
-    rowA = rowB;
-    rowB = rowC;
-    rowC = recycled;
-    scoreRow(y + 1, rowC);
-    // rowB is row y now; smooth vertically and update every column's run.
+  const pixelStep = columnStep * channels;
+  for (let y = yMin; y < yMax; y += rowStep) {
     const centreY = y + 0.5;
-    for (let i = 0; i < columns; i++) {
-      if (y < rowTop[i] || y >= rowBottom[i]) {
-        if (runStart[i] >= 0) closeRun(i, y);
-        continue;
-      }
-      const s = 0.25 * rowA[i] + 0.5 * rowB[i] + 0.25 * rowC[i];
+    let k = (y * width + window.x0) * channels;
+    for (let i = 0; i < columns; i++, k += pixelStep) {
+      const inside = y >= top[i] && y < bottom[i];
+      const s = !inside ? -1 : isColour ? offset - (wr * data[k] + wg * data[k + 1] + wb * data[k + 2]) : offset - wr * data[k];
       if (s >= threshold) {
         if (runStart[i] < 0) {
           runStart[i] = y;
@@ -141,13 +119,80 @@ export function findColumnRuns(image: RawImage, window: ChartWindow, contrast: I
           runMoment[i] = 0;
           runPeak[i] = 0;
         }
-        runMass[i] += s;
-        runMoment[i] += s * centreY;
+        runMass[i] += s * rowStep;
+        runMoment[i] += s * rowStep * centreY;
         if (s > runPeak[i]) runPeak[i] = s;
-      } else if (runStart[i] >= 0) closeRun(i, y);
+      } else if (runStart[i] >= 0) {
+        keepRun(runs, i, runStart[i], y, runMass[i], runMoment[i], runPeak[i], widthPx);
+        runStart[i] = -1;
+      }
     }
   }
-  for (let i = 0; i < columns; i++) if (runStart[i] >= 0) closeRun(i, yMax);
+  for (let i = 0; i < columns; i++) {
+    if (runStart[i] >= 0) keepRun(runs, i, runStart[i], Math.min(yMax, bottom[i]), runMass[i], runMoment[i], runPeak[i], widthPx);
+  }
+  return runs;
+}
+
+/**
+ * Fine pass: every column, only the rows of its band (where the coarse path says the line is), score smoothed
+ * with a 3×3 binomial kernel (tames sensor noise and JPEG blocks without moving a symmetric line's centre).
+ * Scanned column by column; a band is a few dozen rows, so its pixels stay in cache between neighbours.
+ */
+export function findBandRuns(image: RawImage, x0: number, bandTop: Int32Array, bandBottom: Int32Array, contrast: InkContrast, widthPx: number): ColumnRuns {
+  const columns = bandTop.length;
+  const runs = emptyRuns(x0, 1, columns);
+  const { data, width, height, channels } = image;
+  const { offset, threshold } = contrast;
+  const isColour = channels >= 3;
+  const wr = isColour ? contrast.wr : contrast.wr + contrast.wg + contrast.wb;
+  const { wg, wb } = contrast;
+  let horizontal = new Float32Array(0);
+  for (let i = 0; i < columns; i++) {
+    const y0 = bandTop[i];
+    const y1 = bandBottom[i];
+    if (y1 <= y0) continue;
+    const x = x0 + i;
+    const rows = y1 - y0 + 2;
+    if (horizontal.length < rows) horizontal = new Float32Array(rows * 2);
+    // Horizontal [1 2 1]/4 for rows y0 − 1 … y1 (edges repeat the border pixel), then vertical [1 2 1]/4 on the fly.
+    const left = x > 0 ? -channels : 0;
+    const right = x < width - 1 ? channels : 0;
+    for (let r = 0; r < rows; r++) {
+      const y = Math.min(height - 1, Math.max(0, y0 - 1 + r));
+      const k = (y * width + x) * channels;
+      if (isColour) {
+        const a = k + left;
+        const c = k + right;
+        const sum =
+          wr * (data[a] + 2 * data[k] + data[c]) + wg * (data[a + 1] + 2 * data[k + 1] + data[c + 1]) + wb * (data[a + 2] + 2 * data[k + 2] + data[c + 2]);
+        horizontal[r] = offset - 0.25 * sum;
+      } else horizontal[r] = offset - 0.25 * wr * (data[k + left] + 2 * data[k] + data[k + right]);
+    }
+    let start = -1;
+    let mass = 0;
+    let moment = 0;
+    let peak = 0;
+    for (let y = y0; y < y1; y++) {
+      const r = y - y0 + 1;
+      const s = 0.25 * horizontal[r - 1] + 0.5 * horizontal[r] + 0.25 * horizontal[r + 1];
+      if (s >= threshold) {
+        if (start < 0) {
+          start = y;
+          mass = 0;
+          moment = 0;
+          peak = 0;
+        }
+        mass += s;
+        moment += s * (y + 0.5);
+        if (s > peak) peak = s;
+      } else if (start >= 0) {
+        keepRun(runs, i, start, y, mass, moment, peak, widthPx);
+        start = -1;
+      }
+    }
+    if (start >= 0) keepRun(runs, i, start, y1, mass, moment, peak, widthPx);
+  }
   return runs;
 }
 

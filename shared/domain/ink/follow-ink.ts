@@ -1,8 +1,8 @@
 import type { ChartForm } from '../chart-form';
 import { pixelToReading, type RegistrationFit } from '../registration';
-import { chartWindow } from './chart-window';
-import { findColumnRuns, measureLineWidthPx, type ColumnRuns } from './column-runs';
-import { estimateInkContrast } from './ink-contrast';
+import { chartWindow, type ChartWindow } from './chart-window';
+import { findBandRuns, findCoarseRuns, measureLineWidthPx, type ColumnRuns } from './column-runs';
+import { estimateInkContrast, type InkContrast } from './ink-contrast';
 import type { InkSpan, InkTrace } from './ink-trace';
 import { DEFAULT_PATH_COSTS, type PathCosts, runReward, searchInkPath } from './path-search';
 import type { InkColour, RawImage } from './raw-image';
@@ -40,23 +40,20 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
   const window = chartWindow(form, fit, image, startHours, endHours);
   const contrast = estimateInkContrast(image, window, { inkColour: options.inkColour, seed: options.seed });
   const provisionalWidthPx = PROVISIONAL_WIDTH_MM * window.pxPerMm;
-  const runs = findColumnRuns(image, window, contrast, provisionalWidthPx);
+  const costs = { ...DEFAULT_PATH_COSTS, ...options.costs };
+  const band = findBand(image, window, contrast, provisionalWidthPx, costs);
+  const runs = findBandRuns(image, window.x0, band.top, band.bottom, contrast, provisionalWidthPx);
   const widthPx = measureLineWidthPx(runs, provisionalWidthPx);
-  let rowMin = image.height;
-  let rowMax = 0;
-  for (let i = 0; i < window.rowTop.length; i++) {
-    rowMin = Math.min(rowMin, window.rowTop[i]);
-    rowMax = Math.max(rowMax, window.rowBottom[i]);
-  }
   const seed =
     options.seed && options.seed.xPx >= window.x0 && options.seed.xPx < window.x1
       ? { column: Math.floor(options.seed.xPx) - window.x0, yPx: options.seed.yPx, radiusPx: 2 * widthPx }
       : undefined;
-  const chosen = searchInkPath(runs, rowMin, rowMax, widthPx, { ...DEFAULT_PATH_COSTS, ...options.costs }, seed);
+  const chosen = searchInkPath(runs, widthPx, costs, seed);
 
   const points: PointList = { x: [], y: [], confidence: [] };
   const gapColumns: { first: number; last: number }[] = [];
-  collectPoints(runs, chosen, widthPx, points, gapColumns);
+  const ticks: { x: number; y: number }[] = [];
+  collectPoints(runs, chosen, widthPx, points, gapColumns, ticks);
 
   const maxBridgePx = (options.maxBridgeMm ?? DEFAULT_MAX_BRIDGE_MM) * window.pxPerMm;
   const trace = clipToSpan(form, fit, points, startHours, endHours);
@@ -73,19 +70,99 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
     yPx: Float64Array.from(trace.y),
     confidence: Float32Array.from(trace.confidence),
     spans,
+    timeMarks: groupTicks(ticks, widthPx).filter((m) => {
+      const hours = pixelToReading(form, fit, m.xPx, m.yPx).hours;
+      return hours >= startHours && hours <= endHours;
+    }),
     lineWidthPx: widthPx,
     contrastMode: contrast.mode,
   };
 }
 
 /**
- * Turns the chosen runs into points. A short run gives its centre. A long run (the pen moving steeply, or a
- * time mark standing on the line) gives the pen's way through the column: in at the end nearer the previous
- * point, out at the end nearer the next run, so a jump keeps its height and a time mark is stepped over.
+ * Rows to search in every column. Large scans first find the line on a sparse lattice of columns and rows
+ * (a few per line width), then search only a band around that coarse path; columns where the coarse path
+ * saw no ink are searched in full, so faint ink the coarse pass missed can still be found.
  */
-function collectPoints(runs: ColumnRuns, chosen: Int16Array, widthPx: number, points: PointList, gapColumns: { first: number; last: number }[]): void {
+function findBand(
+  image: RawImage,
+  window: ChartWindow,
+  contrast: InkContrast,
+  widthPx: number,
+  costs: PathCosts,
+): { top: Int32Array; bottom: Int32Array } {
+  const columnStep = Math.max(1, Math.round(1.2 * widthPx));
+  const rowStep = Math.max(1, Math.round(widthPx / 2.5));
+  const columns = window.rowTop.length;
+  if (columnStep < 2) return { top: window.rowTop, bottom: window.rowBottom };
+  const coarse = findCoarseRuns(image, window, contrast, columnStep, rowStep, widthPx);
+  const coarseWidthPx = Math.max(widthPx, measureLineWidthPx(coarse, widthPx));
+  const chosen = searchInkPath(coarse, coarseWidthPx, costs, undefined, rowStep);
+  const top = new Int32Array(columns);
+  const bottom = new Int32Array(columns);
+  const margin = Math.ceil(2 * widthPx + 2 * rowStep + 2);
+  // Where the coarse path saw no ink, search around the nearest ink it saw on either side, widely.
+  const wideMargin = margin + Math.ceil(3 * window.pxPerMm);
+  const extentLow = new Float64Array(coarse.columns).fill(Infinity);
+  const extentHigh = new Float64Array(coarse.columns).fill(-Infinity);
+  for (let n = 0; n < coarse.columns; n++) {
+    if (chosen[n] < 0) continue;
+    const j = n * coarse.slots + chosen[n];
+    extentLow[n] = coarse.top[j];
+    extentHigh[n] = coarse.bottom[j];
+  }
+  const nearestLeft = new Int32Array(coarse.columns).fill(-1);
+  const nearestRight = new Int32Array(coarse.columns).fill(-1);
+  for (let n = 0, last = -1; n < coarse.columns; n++) {
+    if (chosen[n] >= 0) last = n;
+    nearestLeft[n] = last;
+  }
+  for (let n = coarse.columns - 1, last = -1; n >= 0; n--) {
+    if (chosen[n] >= 0) last = n;
+    nearestRight[n] = last;
+  }
+  for (let i = 0; i < columns; i++) {
+    const c = Math.min(coarse.columns - 1, Math.floor(i / columnStep));
+    const d = Math.min(coarse.columns - 1, c + 1);
+    let low = Math.min(extentLow[c], extentLow[d]);
+    let high = Math.max(extentHigh[c], extentHigh[d]);
+    let pad = margin;
+    if (low === Infinity) {
+      for (const n of [nearestLeft[c], nearestRight[d]]) {
+        if (n < 0) continue;
+        low = Math.min(low, extentLow[n]);
+        high = Math.max(high, extentHigh[n]);
+      }
+      pad = wideMargin;
+    }
+    if (low === Infinity) {
+      top[i] = window.rowTop[i];
+      bottom[i] = window.rowBottom[i];
+    } else {
+      top[i] = Math.max(window.rowTop[i], Math.floor(low) - pad);
+      bottom[i] = Math.min(window.rowBottom[i], Math.ceil(high) + pad);
+    }
+  }
+  return { top, bottom };
+}
+
+/**
+ * Turns the chosen runs into points. A run gives its centre, unless it is much longer than the line's slope
+ * explains (a time mark standing on the line, or the pen moving almost vertically): then it gives the pen's way
+ * through the column, in at the end nearer the previous point and out at the end nearer the next ordinary run,
+ * so a jump keeps its height and a time mark is stepped over.
+ */
+function collectPoints(
+  runs: ColumnRuns,
+  chosen: Int16Array,
+  widthPx: number,
+  points: PointList,
+  gapColumns: { first: number; last: number }[],
+  ticks: { x: number; y: number }[],
+): void {
   const { slots } = runs;
   const half = widthPx / 2;
+  const long = markLongRuns(runs, chosen, widthPx);
   let gapStart = -1;
   let lastY = NaN;
   for (let i = 0; i < runs.columns; i++) {
@@ -101,41 +178,99 @@ function collectPoints(runs: ColumnRuns, chosen: Int16Array, widthPx: number, po
     const j = i * slots + k;
     const x = runs.x0 + i + 0.5;
     const confidence = confidenceOf(runs, i, k, widthPx);
-    const top = runs.top[j];
-    const bottom = runs.bottom[j];
-    if (!isLong(runs, i, k, widthPx)) {
+    if (long[i] === 0) {
       points.x.push(x);
       points.y.push(runs.centre[j]);
       points.confidence.push(confidence);
       lastY = runs.centre[j];
       continue;
     }
-    const upper = top + half;
-    const lower = bottom - half;
-    // Where the pen goes after this steep stretch: the first short run past it (or back where it came from).
+    const upper = runs.top[j] + half;
+    const lower = runs.bottom[j] - half;
     let after = i + 1;
-    while (after < runs.columns && chosen[after] >= 0 && isLong(runs, after, chosen[after], widthPx)) after++;
+    while (after < runs.columns && chosen[after] >= 0 && long[after] === 1) after++;
     const previousY = Number.isNaN(lastY) ? (upper + lower) / 2 : lastY;
     const nextY = after < runs.columns && chosen[after] >= 0 ? runs.centre[after * slots + chosen[after]] : previousY;
     const entryY = Math.abs(previousY - upper) < Math.abs(previousY - lower) ? upper : lower;
     const exitY = Math.abs(nextY - upper) < Math.abs(nextY - lower) ? upper : lower;
-    points.x.push(x);
-    points.y.push(entryY);
-    points.confidence.push(confidence);
-    if (exitY !== entryY) {
-      points.x.push(x);
-      points.y.push(exitY);
-      points.confidence.push(confidence);
+    if (exitY === entryY) {
+      // In and out at the same end, with a stroke standing well off the line: a time mark. The line under it
+      // is hidden, so the points on either side carry it across.
+      ticks.push({ x, y: entryY });
+      continue;
     }
+    points.x.push(x, x);
+    points.y.push(entryY, exitY);
+    points.confidence.push(confidence, confidence);
     lastY = exitY;
   }
   if (gapStart >= 0) gapColumns.push({ first: gapStart, last: runs.columns - 1 });
+  dropPointsBesideTicks(points, ticks, widthPx);
 }
 
-function isLong(runs: ColumnRuns, i: number, k: number, widthPx: number): boolean {
-  const j = i * runs.slots + k;
-  return runs.bottom[j] - runs.top[j] > 2.2 * widthPx;
+/** The columns just beside a time mark still hold some of its stroke, which pulls their centres off the line. */
+function dropPointsBesideTicks(points: PointList, ticks: { x: number; y: number }[], widthPx: number): void {
+  if (ticks.length === 0) return;
+  const reach = widthPx / 2 + 1;
+  let t = 0;
+  let kept = 0;
+  for (let i = 0; i < points.x.length; i++) {
+    const x = points.x[i];
+    while (t < ticks.length - 1 && ticks[t + 1].x < x) t++;
+    const near = Math.abs(ticks[t].x - x) <= reach || (t + 1 < ticks.length && Math.abs(ticks[t + 1].x - x) <= reach);
+    if (near) continue;
+    points.x[kept] = x;
+    points.y[kept] = points.y[i];
+    points.confidence[kept] = points.confidence[i];
+    kept++;
+  }
+  points.x.length = kept;
+  points.y.length = kept;
+  points.confidence.length = kept;
 }
+
+/**
+ * 1 for a chosen run longer than the line's local slope explains by more than 1.5 widths. The slope comes
+ * from the runs about one line width to either side, outside any time mark on this column.
+ */
+function markLongRuns(runs: ColumnRuns, chosen: Int16Array, widthPx: number): Uint8Array {
+  const long = new Uint8Array(runs.columns);
+  const reach = Math.max(2, Math.ceil(widthPx));
+  const centreAt = (i: number): number => (i >= 0 && i < runs.columns && chosen[i] >= 0 ? runs.centre[i * runs.slots + chosen[i]] : NaN);
+  for (let i = 0; i < runs.columns; i++) {
+    if (chosen[i] < 0) continue;
+    const j = i * runs.slots + chosen[i];
+    const length = runs.bottom[j] - runs.top[j];
+    if (length <= 2.2 * widthPx) continue;
+    const before = centreAt(i - reach);
+    const after = centreAt(i + reach);
+    let slope = 0;
+    if (!Number.isNaN(before) && !Number.isNaN(after)) slope = Math.abs(after - before) / (2 * reach);
+    else if (!Number.isNaN(before)) slope = Math.abs(runs.centre[j] - before) / reach;
+    else if (!Number.isNaN(after)) slope = Math.abs(after - runs.centre[j]) / reach;
+    const expected = widthPx * Math.sqrt(1 + slope * slope);
+    if (length > expected + 1.5 * widthPx) long[i] = 1;
+  }
+  return long;
+}
+
+/** Neighbouring tick columns belong to one stroke; its foot is their mean position. */
+function groupTicks(ticks: { x: number; y: number }[], widthPx: number): { xPx: number; yPx: number }[] {
+  const marks: { xPx: number; yPx: number }[] = [];
+  let group: { x: number; y: number }[] = [];
+  const flush = () => {
+    if (group.length === 0) return;
+    marks.push({ xPx: group.reduce((s, t) => s + t.x, 0) / group.length, yPx: group.reduce((s, t) => s + t.y, 0) / group.length });
+    group = [];
+  };
+  for (const tick of ticks) {
+    if (group.length > 0 && tick.x - group[group.length - 1].x > Math.max(1.5, widthPx / 2)) flush();
+    group.push(tick);
+  }
+  flush();
+  return marks;
+}
+
 
 /** Reward of the chosen run (≈ 1 on full ink), lowered when another run in the column is nearly as strong. */
 function confidenceOf(runs: ColumnRuns, i: number, k: number, widthPx: number): number {

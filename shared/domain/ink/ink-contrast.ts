@@ -28,7 +28,7 @@ export interface InkContrastOptions {
   seed?: { xPx: number; yPx: number };
 }
 
-const MAX_SAMPLES = 120_000;
+const MAX_SAMPLES = 20_000;
 // Colour ink needs at least this share of its contrast left after removing the grid direction.
 const MIN_ORTHOGONAL_SHARE = 0.3;
 const MIN_THRESHOLD = 0.22;

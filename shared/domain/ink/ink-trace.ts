@@ -21,6 +21,8 @@ export interface InkTrace {
   yPx: Float64Array;
   confidence: Float32Array;
   spans: InkSpan[];
+  /** Feet of time marks: short strokes standing off the line, found where the path stepped over them. */
+  timeMarks: { xPx: number; yPx: number }[];
   /** Width of the pen line down a column, px, as measured. */
   lineWidthPx: number;
   /** How ink was told from paper: 'colour' (grid colour projected out) or 'grey' (darker than the grid). */

@@ -13,10 +13,11 @@ export interface PathCosts {
   /** Cost of leaving the ink for a gap, and of coming back. */
   gapExitCost: number;
   gapEntryCost: number;
-  /** Cost per line width between where the gap left and where the line comes back. */
+  /** Cost per line width between where the gap left and where the line comes back, beyond the allowance. */
   gapReturnCostPerWidth: number;
-  /** Cost per bin the remembered position drifts per column during a gap. */
-  gapDriftCost: number;
+  /** How far (line widths, plus this share of a width per column of gap) the line may move during a gap for free. */
+  gapAllowanceWidths: number;
+  gapAllowancePerColumn: number;
   /** Small cost on centre changes between short runs, to stop zigzags between touching lines. */
   centreCostPerWidth2: number;
 }
@@ -28,7 +29,8 @@ export const DEFAULT_PATH_COSTS: PathCosts = {
   gapExitCost: 1.5,
   gapEntryCost: 1.5,
   gapReturnCostPerWidth: 1,
-  gapDriftCost: 0.3,
+  gapAllowanceWidths: 2,
+  gapAllowancePerColumn: 0.1,
   centreCostPerWidth2: 0.1,
 };
 
@@ -40,6 +42,7 @@ export interface PathSeed {
 }
 
 const START = -2147483648;
+const FROM_GAP = -1;
 const FORBIDDEN = 1e12;
 
 /** Reward of run j: half its mean score over at least one line width, half its peak (both about 1 on full ink). */
@@ -49,35 +52,28 @@ export function runReward(runs: ColumnRuns, j: number, widthPx: number): number 
 }
 
 /**
- * Finds the globally cheapest path through the columns (Viterbi over runs plus a gap state that remembers
- * the row band where the ink was left). Returns, per column, the chosen run's slot, or −1 in a gap.
- * Memory: two back-pointer arrays (columns × slots, columns × bins) of Int32.
+ * Finds the globally cheapest path through the columns: Viterbi over each column's runs, plus one gap state
+ * that remembers where (row, column) the best path left the ink, so that the line coming back far from there
+ * pays for it. Returns, per column, the chosen run's slot, or −1 in a gap. Memory: columns × (slots + 1) Int32.
  */
 export function searchInkPath(
   runs: ColumnRuns,
-  rowMin: number,
-  rowMax: number,
   widthPx: number,
   costs: PathCosts = DEFAULT_PATH_COSTS,
   seed?: PathSeed,
+  contactSlackPx = 1,
 ): Int16Array {
   const { columns, slots } = runs;
   const chosen = new Int16Array(columns).fill(-1);
   if (columns === 0) return chosen;
-  const binPx = Math.max(2, 2 * widthPx);
-  const bins = Math.max(1, Math.ceil((rowMax - rowMin) / binPx) + 1);
-  const binOf = (y: number): number => Math.min(bins - 1, Math.max(0, Math.floor((y - rowMin) / binPx)));
-  const returnPerBin = (costs.gapReturnCostPerWidth * binPx) / widthPx;
-
   const backRun = new Int32Array(columns * slots);
-  const backGap = new Int32Array(columns * bins);
+  const backGap = new Int32Array(columns);
   let previousRun = new Float64Array(slots);
   let currentRun = new Float64Array(slots);
-  let previousGap = new Float64Array(bins);
-  let currentGap = new Float64Array(bins);
-  const entry = new Float64Array(bins);
-  const entryFrom = new Int32Array(bins);
   const unary = new Float64Array(slots);
+  let gapCost = seed && seed.column === 0 ? FORBIDDEN : 0;
+  let gapY = NaN;
+  let gapStart = 0;
 
   const fillUnary = (i: number): void => {
     for (let k = 0; k < runs.count[i]; k++) {
@@ -95,10 +91,7 @@ export function searchInkPath(
     previousRun[k] = unary[k];
     backRun[k] = START;
   }
-  for (let b = 0; b < bins; b++) {
-    previousGap[b] = seed && seed.column === 0 ? FORBIDDEN : 0;
-    backGap[b] = START;
-  }
+  backGap[0] = START;
 
   for (let i = 1; i < columns; i++) {
     const prevBase = (i - 1) * slots;
@@ -106,36 +99,19 @@ export function searchInkPath(
     const prevCount = runs.count[i - 1];
     const count = runs.count[i];
     fillUnary(i);
-
-    // Entry from the gap state: an L1 distance transform over bins gives every bin its cheapest return.
-    for (let b = 0; b < bins; b++) {
-      entry[b] = previousGap[b];
-      entryFrom[b] = b;
-    }
-    for (let b = 1; b < bins; b++) {
-      if (entry[b - 1] + returnPerBin < entry[b]) {
-        entry[b] = entry[b - 1] + returnPerBin;
-        entryFrom[b] = entryFrom[b - 1];
-      }
-    }
-    for (let b = bins - 2; b >= 0; b--) {
-      if (entry[b + 1] + returnPerBin < entry[b]) {
-        entry[b] = entry[b + 1] + returnPerBin;
-        entryFrom[b] = entryFrom[b + 1];
-      }
-    }
+    const allowancePx = widthPx * (costs.gapAllowanceWidths + costs.gapAllowancePerColumn * (i - gapStart));
 
     for (let k = 0; k < count; k++) {
       const j = base + k;
       const top = runs.top[j];
       const bottom = runs.bottom[j];
       const isShort = bottom - top <= 2 * widthPx;
-      const entryBin = binOf(runs.centre[j]);
-      let best = entry[entryBin] + costs.gapEntryCost;
-      let from = -1 - entryFrom[entryBin];
+      const away = Number.isNaN(gapY) ? 0 : Math.max(0, Math.abs(runs.centre[j] - gapY) - allowancePx);
+      let best = gapCost + costs.gapEntryCost + (costs.gapReturnCostPerWidth * away) / widthPx;
+      let from = FROM_GAP;
       for (let p = 0; p < prevCount; p++) {
         const q = prevBase + p;
-        const separation = Math.max(0, top - runs.bottom[q], runs.top[q] - bottom) - 1;
+        const separation = Math.max(0, top - runs.bottom[q], runs.top[q] - bottom) - contactSlackPx;
         let cost = previousRun[p];
         if (separation > 0) cost += costs.breakCost + costs.breakCostPerWidth2 * (separation / widthPx) ** 2;
         if (isShort && runs.bottom[q] - runs.top[q] <= 2 * widthPx) {
@@ -150,57 +126,42 @@ export function searchInkPath(
       backRun[j] = from;
     }
 
-    // The gap state: stay in the same band, drift one band, or leave the ink from a run of the last column.
-    const gapBase = i * bins;
-    const seedPenalty = seed && seed.column === i ? FORBIDDEN : 0;
-    for (let b = 0; b < bins; b++) {
-      let best = previousGap[b];
-      let from = -1 - b;
-      if (b > 0 && previousGap[b - 1] + costs.gapDriftCost < best) {
-        best = previousGap[b - 1] + costs.gapDriftCost;
-        from = -1 - (b - 1);
-      }
-      if (b + 1 < bins && previousGap[b + 1] + costs.gapDriftCost < best) {
-        best = previousGap[b + 1] + costs.gapDriftCost;
-        from = -1 - (b + 1);
-      }
-      currentGap[b] = best + seedPenalty;
-      backGap[gapBase + b] = from;
-    }
+    // The gap state: stay in it, or leave the ink from a run of the last column (remembering where).
+    let nextGap = gapCost;
+    let from = FROM_GAP;
     for (let p = 0; p < prevCount; p++) {
-      const b = binOf(runs.centre[prevBase + p]);
-      const cost = previousRun[p] + costs.gapExitCost + seedPenalty;
-      if (cost < currentGap[b]) {
-        currentGap[b] = cost;
-        backGap[gapBase + b] = p;
+      const cost = previousRun[p] + costs.gapExitCost;
+      if (cost < nextGap) {
+        nextGap = cost;
+        from = p;
       }
     }
+    if (from !== FROM_GAP) {
+      gapY = runs.centre[prevBase + from];
+      gapStart = i;
+    }
+    gapCost = nextGap + (seed && seed.column === i ? FORBIDDEN : 0);
+    backGap[i] = from;
 
-    let swap = previousRun;
+    const swap = previousRun;
     previousRun = currentRun;
     currentRun = swap;
-    swap = previousGap;
-    previousGap = currentGap;
-    currentGap = swap;
   }
 
   // Best end state, then walk the back pointers.
-  let state = 0;
-  let isGap = true;
-  let best = Infinity;
-  for (let b = 0; b < bins; b++) if (previousGap[b] < best) [best, state, isGap] = [previousGap[b], b, true];
-  for (let k = 0; k < runs.count[columns - 1]; k++) if (previousRun[k] < best) [best, state, isGap] = [previousRun[k], k, false];
-  for (let i = columns - 1; i >= 0; i--) {
-    const pointer = isGap ? backGap[i * bins + state] : backRun[i * slots + state];
-    if (!isGap) chosen[i] = state;
-    if (pointer === START) break;
-    if (pointer >= 0) {
-      state = pointer;
-      isGap = false;
-    } else {
-      state = -1 - pointer;
-      isGap = true;
+  let state = -1;
+  let best = gapCost;
+  for (let k = 0; k < runs.count[columns - 1]; k++) {
+    if (previousRun[k] < best) {
+      best = previousRun[k];
+      state = k;
     }
+  }
+  for (let i = columns - 1; i >= 0; i--) {
+    const pointer = state < 0 ? backGap[i] : backRun[i * slots + state];
+    if (state >= 0) chosen[i] = state;
+    if (pointer === START) break;
+    state = pointer;
   }
   return chosen;
 }
