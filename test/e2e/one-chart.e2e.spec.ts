@@ -1,0 +1,175 @@
+/**
+ * One chart, end to end through the real UI: an archivist uploads a generated scan, a volunteer pins its
+ * grid and clicks along the pen line on the Bench, and a climatologist downloads the station series as CSV.
+ * The chart is invented by fixtures/generator, so the true pressure at every hour is known.
+ */
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import type { Page } from 'playwright-core';
+import { generateChart } from '../../fixtures/generator/generate-chart';
+import { pixelFromReading } from '../../fixtures/generator/sheet-layout';
+import { loadConfig } from '../../server/config';
+import { startServer, type RunningServer } from '../../server/server';
+import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
+import { chooseOption, launchChromium, signIn, signOut, type BrowserSession } from '../helpers/browser';
+
+const ROOT = resolve(__dirname, '../..');
+const CHART_START = '2026-04-06T00:00:00Z';
+const HOUR_MS = 3_600_000;
+
+jest.setTimeout(240_000);
+
+interface StageView {
+  left: number;
+  top: number;
+  scale: number;
+  x: number;
+  y: number;
+}
+
+async function readStageView(page: Page): Promise<StageView> {
+  const stage = page.getByTestId('scan-stage');
+  const box = await stage.boundingBox();
+  if (!box) throw new Error('scan-stage is not visible');
+  const read = async (name: string) => Number(await stage.getAttribute(name));
+  return { left: box.x, top: box.y, scale: await read('data-view-scale'), x: await read('data-view-x'), y: await read('data-view-y') };
+}
+
+function toScreen(view: StageView, point: { xPx: number; yPx: number }): { x: number; y: number } {
+  return { x: view.left + view.x + point.xPx * view.scale, y: view.top + view.y + point.yPx * view.scale };
+}
+
+function parseCsv(text: string): string[][] {
+  return text.trim().split('\n').map((line) => line.split(','));
+}
+
+describe('one chart from upload to station series', () => {
+  let workDir: string;
+  let server: RunningServer;
+  let chromium: BrowserSession;
+
+  beforeAll(async () => {
+    workDir = mkdtempSync(join(tmpdir(), 'isallo-e2e-'));
+    const databaseUrl = process.env['E2E_DATABASE_URL'];
+    if (!databaseUrl) throw new Error('E2E_DATABASE_URL is not set; run the browser suite through scripts/test.ts');
+    const config = loadConfig({
+      DATABASE_URL: databaseUrl,
+      JWT_SECRET: 'e2e-secret-of-the-browser-suite',
+      PORT: '0',
+      STORAGE_DIR: join(workDir, 'storage'),
+      CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
+      LOG_LEVEL: 'warn',
+    });
+    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures') });
+    chromium = await launchChromium();
+  });
+
+  afterAll(async () => {
+    await chromium?.close();
+    await server?.close();
+    rmSync(workDir, { recursive: true, force: true });
+  });
+
+  it('when an archivist uploads, a volunteer traces and a climatologist exports, then the CSV holds the traced pressures', async () => {
+    // Arrange: an invented weekly chart at 150 dpi, with its grid crossings and true pressures known.
+    const chart = await generateChart({ seed: 23, dpi: 150, chartStart: CHART_START });
+    const scanPath = join(workDir, 'saltmere-week-15.png');
+    writeFileSync(scanPath, chart.image);
+    const pins = chart.chartJson['pins'] as { xPx: number; yPx: number; time: string; pressure: number }[];
+    const chartStartMs = Date.parse(CHART_START);
+    const firstHour = Math.ceil(chart.scene.chartOnHours) + 1;
+    const lastHour = Math.floor(chart.scene.chartOffHours) - 1;
+    const knotHours: number[] = [];
+    for (let h = firstHour; h <= lastHour; h += 2) knotHours.push(h);
+    // As a volunteer would, click the foot, middle and top of the ten-minute pressure jump as well.
+    const jumpHours = chart.scene.story.jumpHours;
+    knotHours.push(jumpHours - 0.2, jumpHours, jumpHours + 0.2);
+    knotHours.sort((a, b) => a - b);
+    const page = await chromium.browser.newPage({ viewport: { width: 1500, height: 950 }, acceptDownloads: true });
+
+    // Act 1: the archivist uploads the scan for Saltmere Bay School.
+    await signIn(page, server.url, 'archivist@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-archive').click();
+    await page.getByTestId('upload-file').setInputFiles(scanPath);
+    await chooseOption(page, 'upload-station', 'Saltmere Bay School');
+    await chooseOption(page, 'upload-chart-form', 'Generated weekly 950–1050 hPa');
+    await page.getByTestId('upload-period-start').fill('2026-04-06T00:00Z');
+    await page.getByTestId('upload-submit').click();
+    await page.getByTestId('upload-result').filter({ hasText: /stored/i }).waitFor();
+    await page.getByTestId('catalogue-row').filter({ hasText: 'saltmere-week-15.png' }).waitFor();
+    await signOut(page);
+
+    // Act 2: the volunteer pins four grid crossings and clicks knots along the pen line.
+    await signIn(page, server.url, 'volunteer@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-desk').click();
+    await page.getByTestId('desk-row').filter({ hasText: 'Saltmere Bay School' }).getByTestId('trace-link').click();
+    await page.getByTestId('scan-stage').locator('canvas').first().waitFor();
+    await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
+    let view = await readStageView(page);
+    await page.getByTestId('mode-pin').click();
+    for (const pin of pins.slice(0, 4)) {
+      const at = toScreen(view, pin);
+      await page.mouse.click(at.x, at.y);
+      await page.getByTestId('pin-time').fill(pin.time.replace(':00Z', 'Z'));
+      await page.getByTestId('pin-pressure').fill(String(pin.pressure));
+      await page.getByTestId('pin-save').click();
+    }
+    await expectCount(page, 'pin-row', 4);
+    view = await readStageView(page);
+    await page.getByTestId('mode-ink').click();
+    for (const hours of knotHours) {
+      const at = toScreen(view, pixelFromReading(chart.layout, { hours, pressure: chart.scene.story.pressureHpaAt(hours) }));
+      await page.mouse.click(at.x, at.y);
+    }
+    await page.getByTestId('knot-count').filter({ hasText: String(knotHours.length) }).waitFor();
+    await page.getByTestId('hand-in').click();
+    const result = page.getByTestId('hand-in-result');
+    await result.waitFor();
+    const handedInPointCount = Number(await result.getAttribute('data-point-count'));
+    await signOut(page);
+
+    // Act 3: the climatologist shows the week and downloads it.
+    await signIn(page, server.url, 'climatologist@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-series').click();
+    await chooseOption(page, 'series-station', 'Saltmere Bay School');
+    await page.getByTestId('series-from').fill('2026-04-06');
+    await page.getByTestId('series-to').fill('2026-04-12');
+    await page.getByTestId('series-show').click();
+    await page.getByTestId('series-plot').locator('path').first().waitFor();
+    const downloadPromise = page.waitForEvent('download');
+    await page.getByTestId('series-download').click();
+    const download = await downloadPromise;
+    const csvPath = join(workDir, 'series.csv');
+    await download.saveAs(csvPath);
+    const rows = parseCsv(readFileSync(csvPath, 'utf8'));
+
+    // Assert: hourly rows between the first and last knot, each within 0.6 hPa of the invented truth
+    // (a click lands within half a screen pixel, about 0.15 hPa at this scale; the straight segments between
+    // two-hourly knots cut the curve's corners by a few tenths).
+    expect(rows[0]).toEqual(['time', 'pressure_hpa', 'flag', 'ink_line_id']);
+    const body = rows.slice(1);
+    // The first and last knot land a few seconds either side of their hour, so one end hour may drop out.
+    const spanHours = knotHours[knotHours.length - 1] - knotHours[0] + 1;
+    expect(body.length).toBeGreaterThanOrEqual(spanHours - 2);
+    expect(body.length).toBeLessThanOrEqual(spanHours);
+    for (const [time, pressure, flag] of body) {
+      expect(time).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:00:00\.000Z$/);
+      const hours = (Date.parse(time) - chartStartMs) / HOUR_MS;
+      // Straight segments between hand knots cannot follow the jump's own ten minutes; judge the rest.
+      if (Math.abs(hours - jumpHours) < 0.2) continue;
+      expect(Math.abs(Number(pressure) - chart.scene.story.pressureHpaAt(hours))).toBeLessThan(0.6);
+      // Knots two hours apart span more than the hourly step, so resampleRegular marks the points between them.
+      expect(flag).toBe('interpolated');
+    }
+    expect(handedInPointCount).toBe(body.length);
+    await page.close();
+  });
+});
+
+async function expectCount(page: Page, testId: string, count: number): Promise<void> {
+  await page.waitForFunction(
+    ([id, n]) => document.querySelectorAll(`[data-testid="${id}"]`).length === n,
+    [testId, count] as const,
+  );
+}
