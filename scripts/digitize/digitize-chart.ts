@@ -81,8 +81,10 @@ export function digitizeChart(image: RawImage, chart: ChartFile, options: Digiti
   for (let i = 0; i < n; i++) {
     if (breakBefore[i]) stretch++;
     const reading = pixelToReading(form, registration, trace.xPx[i], trace.yPx[i]);
+    // The trace runs forward in time; the two ends of a vertical stroke can differ by a rounding of the arc.
+    const timeMs = Math.max(chartStartMs + reading.hours * HOUR_MS, i > 0 ? chartSamples[i - 1].timeMs : -Infinity);
     chartSamples.push({
-      timeMs: chartStartMs + reading.hours * HOUR_MS,
+      timeMs,
       pressureHpa: toHpa(reading.pressure, form.pressureUnit),
       confidence: trace.confidence[i],
       isOffScale: offScale[i] === 1,
@@ -93,10 +95,7 @@ export function digitizeChart(image: RawImage, chart: ChartFile, options: Digiti
   const capMs = ((trace.lineWidthPx / 2) / pixelsPerHour(form, registration)) * HOUR_MS;
   const matchedMarks = matchTimeMarks(chart, trace, registration, chartStartMs, chartSamples, capMs);
   const clock = fitRobustClock(matchedMarks);
-  // Sorted by true time: along a steep stretch the arcs can put neighbouring columns slightly out of time order.
-  const timed = chartSamples
-    .map((s) => ({ ...s, timeMs: clock ? correctChartTime(clock, s.timeMs) : s.timeMs }))
-    .sort((a, b) => a.timeMs - b.timeMs);
+  const timed = chartSamples.map((s) => ({ ...s, timeMs: clock ? correctChartTime(clock, s.timeMs) : s.timeMs }));
 
   const columnMinutes = ((25.4 / estimateDpi(registration)) / form.mmPerHour) * 60;
   const instrument = fitInstrument(chart, timed);

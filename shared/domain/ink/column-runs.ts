@@ -5,7 +5,7 @@ import type { RawImage } from './raw-image';
 /**
  * Per sampled image column, the runs of ink-scoring pixels found down that column: the candidates the path
  * search picks from. Flat typed arrays, `slots` entries per column; entry k of column i is at i·slots + k.
- * Column i sits at pixel column x0 + i·step.
+ * Column i is the time column (see ChartWindow) at pixel x0 + i·step on the pivot row.
  */
 export interface ColumnRuns {
   x0: number;
@@ -108,9 +108,11 @@ export function findCoarseRuns(
   const pixelStep = columnStep * channels;
   for (let y = yMin; y < yMax; y += rowStep) {
     const centreY = y + 0.5;
-    let k = (y * width + window.x0) * channels;
-    for (let i = 0; i < columns; i++, k += pixelStep) {
-      const inside = y >= top[i] && y < bottom[i];
+    // This row of every time column, read along the arcs: one shift for the whole row.
+    const xStart = window.x0 + Math.round(window.rowShift[y]);
+    let k = (y * width + xStart) * channels;
+    for (let i = 0, x = xStart; i < columns; i++, k += pixelStep, x += columnStep) {
+      const inside = y >= top[i] && y < bottom[i] && x >= 0 && x < width;
       const s = !inside ? -1 : isColour ? offset - (wr * data[k] + wg * data[k + 1] + wb * data[k + 2]) : offset - wr * data[k];
       if (s >= threshold) {
         if (runStart[i] < 0) {
@@ -139,8 +141,17 @@ export function findCoarseRuns(
  * with a 3×3 binomial kernel (tames sensor noise and JPEG blocks without moving a symmetric line's centre).
  * Scanned column by column; a band is a few dozen rows, so its pixels stay in cache between neighbours.
  */
-export function findBandRuns(image: RawImage, x0: number, bandTop: Int32Array, bandBottom: Int32Array, contrast: InkContrast, widthPx: number): ColumnRuns {
+export function findBandRuns(
+  image: RawImage,
+  window: ChartWindow,
+  bandTop: Int32Array,
+  bandBottom: Int32Array,
+  contrast: InkContrast,
+  widthPx: number,
+): ColumnRuns {
   const columns = bandTop.length;
+  const x0 = window.x0;
+  const shift = window.rowShift;
   const runs = emptyRuns(x0, 1, columns);
   const { data, width, height, channels } = image;
   const { offset, threshold } = contrast;
@@ -152,14 +163,15 @@ export function findBandRuns(image: RawImage, x0: number, bandTop: Int32Array, b
     const y0 = bandTop[i];
     const y1 = bandBottom[i];
     if (y1 <= y0) continue;
-    const x = x0 + i;
     const rows = y1 - y0 + 2;
     if (horizontal.length < rows) horizontal = new Float32Array(rows * 2);
-    // Horizontal [1 2 1]/4 for rows y0 − 1 … y1 (edges repeat the border pixel), then vertical [1 2 1]/4 on the fly.
-    const left = x > 0 ? -channels : 0;
-    const right = x < width - 1 ? channels : 0;
+    // Horizontal [1 2 1]/4 for rows y0 − 1 … y1 along the column's arc (edges repeat the border pixel), then
+    // vertical [1 2 1]/4 on the fly.
     for (let r = 0; r < rows; r++) {
       const y = Math.min(height - 1, Math.max(0, y0 - 1 + r));
+      const x = Math.min(width - 1, Math.max(0, x0 + i + Math.round(shift[y])));
+      const left = x > 0 ? -channels : 0;
+      const right = x < width - 1 ? channels : 0;
       const k = (y * width + x) * channels;
       if (isColour) {
         const a = k + left;

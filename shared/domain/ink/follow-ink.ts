@@ -1,6 +1,6 @@
 import type { ChartForm } from '../chart-form';
 import { pixelToReading, type RegistrationFit } from '../registration';
-import { chartWindow, type ChartWindow } from './chart-window';
+import { chartWindow, type ChartWindow, columnX } from './chart-window';
 import { findBandRuns, findCoarseRuns, measureLineWidthPx, type ColumnRuns } from './column-runs';
 import { estimateInkContrast, type InkContrast } from './ink-contrast';
 import type { InkSpan, InkTrace } from './ink-trace';
@@ -28,6 +28,8 @@ interface PointList {
   x: number[];
   y: number[];
   confidence: number[];
+  /** Time column of each point. */
+  column: number[];
 }
 
 /**
@@ -42,7 +44,7 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
   const provisionalWidthPx = PROVISIONAL_WIDTH_MM * window.pxPerMm;
   const costs = { ...DEFAULT_PATH_COSTS, ...options.costs };
   const band = findBand(image, window, contrast, provisionalWidthPx, costs);
-  const runs = findBandRuns(image, window.x0, band.top, band.bottom, contrast, provisionalWidthPx);
+  const runs = findBandRuns(image, window, band.top, band.bottom, contrast, provisionalWidthPx);
   const widthPx = measureLineWidthPx(runs, provisionalWidthPx);
   const seed =
     options.seed && options.seed.xPx >= window.x0 && options.seed.xPx < window.x1
@@ -50,15 +52,15 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
       : undefined;
   const chosen = searchInkPath(runs, widthPx, costs, seed);
 
-  const points: PointList = { x: [], y: [], confidence: [] };
+  const points: PointList = { x: [], y: [], confidence: [], column: [] };
   const gapColumns: { first: number; last: number }[] = [];
   const ticks: { x: number; y: number }[] = [];
-  collectPoints(runs, chosen, widthPx, points, gapColumns, ticks);
+  collectPoints(runs, window, chosen, widthPx, points, gapColumns, ticks);
 
   const maxBridgePx = (options.maxBridgeMm ?? DEFAULT_MAX_BRIDGE_MM) * window.pxPerMm;
   const trace = clipToSpan(form, fit, points, startHours, endHours);
   const spans = [
-    ...gapSpans(trace, gapColumns, runs.x0, maxBridgePx, (x, y) => pixelToReading(form, fit, x, y).hours, {
+    ...gapSpans(trace, gapColumns, window, maxBridgePx, (x, y) => pixelToReading(form, fit, x, y).hours, {
       startHours,
       endHours,
       bridgeHours: (options.maxBridgeMm ?? DEFAULT_MAX_BRIDGE_MM) / form.mmPerHour,
@@ -154,6 +156,7 @@ function findBand(
  */
 function collectPoints(
   runs: ColumnRuns,
+  window: ChartWindow,
   chosen: Int16Array,
   widthPx: number,
   points: PointList,
@@ -176,32 +179,39 @@ function collectPoints(
       gapStart = -1;
     }
     const j = i * slots + k;
-    const x = runs.x0 + i + 0.5;
-    const confidence = confidenceOf(runs, i, k, widthPx);
     if (long[i] === 0) {
-      points.x.push(x);
+      points.x.push(columnX(window, i, runs.centre[j]));
       points.y.push(runs.centre[j]);
-      points.confidence.push(confidence);
+      points.confidence.push(confidenceOf(runs, i, k, widthPx));
+      points.column.push(i);
       lastY = runs.centre[j];
       continue;
     }
-    const upper = runs.top[j] + half;
-    const lower = runs.bottom[j] - half;
-    let after = i + 1;
-    while (after < runs.columns && chosen[after] >= 0 && long[after] === 1) after++;
-    const previousY = Number.isNaN(lastY) ? (upper + lower) / 2 : lastY;
-    const nextY = after < runs.columns && chosen[after] >= 0 ? runs.centre[after * slots + chosen[after]] : previousY;
+    // A stretch of long runs: a stroke as wide as the pen, standing across several columns. Its middle column
+    // says where it is; the ordinary runs before and after it say whether the pen went through it or only up and back.
+    let last = i;
+    while (last + 1 < runs.columns && chosen[last + 1] >= 0 && long[last + 1] === 1) last++;
+    const middle = (i + last) >> 1;
+    const m = middle * slots + chosen[middle];
+    const upper = runs.top[m] + half;
+    const lower = runs.bottom[m] - half;
+    const next = last + 1 < runs.columns && chosen[last + 1] >= 0 ? runs.centre[(last + 1) * slots + chosen[last + 1]] : NaN;
+    const previousY = Number.isNaN(lastY) ? (Number.isNaN(next) ? (upper + lower) / 2 : next) : lastY;
+    const nextY = Number.isNaN(next) ? previousY : next;
     const entryY = Math.abs(previousY - upper) < Math.abs(previousY - lower) ? upper : lower;
     const exitY = Math.abs(nextY - upper) < Math.abs(nextY - lower) ? upper : lower;
+    i = last;
     if (exitY === entryY) {
-      // In and out at the same end, with a stroke standing well off the line: a time mark. The line under it
-      // is hidden, so the points on either side carry it across.
-      ticks.push({ x, y: entryY });
+      // In and out at the same end: a time mark standing on the line. The line under it is hidden, so the
+      // points on either side carry it across.
+      ticks.push({ x: columnX(window, middle, entryY), y: entryY });
       continue;
     }
-    points.x.push(x, x);
+    const confidence = confidenceOf(runs, middle, chosen[middle], widthPx);
+    points.x.push(columnX(window, middle, entryY), columnX(window, middle, exitY));
     points.y.push(entryY, exitY);
     points.confidence.push(confidence, confidence);
+    points.column.push(middle, middle);
     lastY = exitY;
   }
   if (gapStart >= 0) gapColumns.push({ first: gapStart, last: runs.columns - 1 });
@@ -222,8 +232,10 @@ function dropPointsBesideTicks(points: PointList, ticks: { x: number; y: number 
     points.x[kept] = x;
     points.y[kept] = points.y[i];
     points.confidence[kept] = points.confidence[i];
+    points.column[kept] = points.column[i];
     kept++;
   }
+  points.column.length = kept;
   points.x.length = kept;
   points.y.length = kept;
   points.confidence.length = kept;
@@ -286,15 +298,15 @@ function confidenceOf(runs: ColumnRuns, i: number, k: number, widthPx: number): 
   return Math.max(0, Math.min(1, reward)) * clear;
 }
 
-function clipToSpan(form: ChartForm, fit: RegistrationFit, points: PointList, startHours: number, endHours: number): PointList & { column: number[] } {
-  const out: PointList & { column: number[] } = { x: [], y: [], confidence: [], column: [] };
+function clipToSpan(form: ChartForm, fit: RegistrationFit, points: PointList, startHours: number, endHours: number): PointList {
+  const out: PointList = { x: [], y: [], confidence: [], column: [] };
   for (let i = 0; i < points.x.length; i++) {
     const hours = pixelToReading(form, fit, points.x[i], points.y[i]).hours;
     if (hours < startHours || hours > endHours) continue;
     out.x.push(points.x[i]);
     out.y.push(points.y[i]);
     out.confidence.push(points.confidence[i]);
-    out.column.push(Math.floor(points.x[i]));
+    out.column.push(points.column[i]);
   }
   return out;
 }
@@ -304,9 +316,9 @@ function clipToSpan(form: ChartForm, fit: RegistrationFit, points: PointList, st
  * after the last, only the part inside the asked span of hours counts (the window's corners hold no ink).
  */
 function gapSpans(
-  trace: PointList & { column: number[] },
+  trace: PointList,
   gapColumns: { first: number; last: number }[],
-  x0: number,
+  window: ChartWindow,
   maxBridgePx: number,
   hoursAt: (xPx: number, yPx: number) => number,
   span: { startHours: number; endHours: number; bridgeHours: number },
@@ -314,12 +326,13 @@ function gapSpans(
   const spans: InkSpan[] = [];
   const n = trace.x.length;
   for (const gap of gapColumns) {
-    const startXPx = x0 + gap.first;
-    const endXPx = x0 + gap.last + 1;
-    if (endXPx - startXPx <= maxBridgePx) continue;
-    let after = trace.column.findIndex((c) => c > x0 + gap.last);
+    if (gap.last + 1 - gap.first <= maxBridgePx) continue;
+    let after = trace.column.findIndex((c) => c > gap.last);
     if (after < 0) after = n;
     const before = after - 1;
+    const y = n === 0 ? window.rowShift.length / 2 : before >= 0 ? trace.y[before] : trace.y[after];
+    const startXPx = columnX(window, gap.first, y) - 0.5;
+    const endXPx = columnX(window, gap.last, y) + 0.5;
     if (n === 0) {
       spans.push({ kind: 'gap', startXPx, endXPx, startIndex: -1, endIndex: 0 });
       continue;
