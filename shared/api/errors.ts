@@ -9,10 +9,16 @@ export type ApiErrorCode =
   | 'scan_not_found'
   | 'station_not_found'
   | 'chart_form_not_found'
+  | 'instrument_not_found'
+  | 'intake_batch_not_found'
   | 'duplicate_scan'
   | 'unsupported_file_type'
   | 'file_too_large'
   | 'corrupt_image'
+  /** The image's pixel count would exhaust memory (a decompression bomb); refused before decoding. */
+  | 'image_too_large'
+  /** A PDF that is encrypted or has no pages. */
+  | 'unreadable_pdf'
   | 'registration_failed'
   | 'version_conflict'
   | 'conflict'

@@ -1,15 +1,46 @@
+const enc = encodeURIComponent;
+
 /** Every API path, relative to the server root. The client and server both import these. */
 export const API = {
   signIn: '/api/auth/sign-in',
   me: '/api/auth/me',
   stations: '/api/stations',
+  station: (stationId: string) => `/api/stations/${enc(stationId)}`,
+  stationInstruments: (stationId: string) => `/api/stations/${enc(stationId)}/instruments`,
+  instrument: (instrumentId: string) => `/api/instruments/${enc(instrumentId)}`,
   chartForms: '/api/chart-forms',
+  chartForm: (chartFormId: string) => `/api/chart-forms/${enc(chartFormId)}`,
+  intakeBatches: '/api/intake/batches',
+  intakeBatch: (batchId: string) => `/api/intake/batches/${enc(batchId)}`,
+  intakeBatchFiles: (batchId: string) => `/api/intake/batches/${enc(batchId)}/files`,
+  intakeBatchInventory: (batchId: string) => `/api/intake/batches/${enc(batchId)}/inventory`,
   scans: '/api/scans',
-  scan: (scanId: string) => `/api/scans/${encodeURIComponent(scanId)}`,
-  scanPreview: (scanId: string) => `/api/scans/${encodeURIComponent(scanId)}/preview`,
-  scanInkLines: (scanId: string) => `/api/scans/${encodeURIComponent(scanId)}/ink-lines`,
+  scanStatusCounts: '/api/scans/status-counts',
+  scan: (scanId: string) => `/api/scans/${enc(scanId)}`,
+  scanStatus: (scanId: string) => `/api/scans/${enc(scanId)}/status`,
+  scanAudit: (scanId: string) => `/api/scans/${enc(scanId)}/audit`,
+  scanDerivativesRetry: (scanId: string) => `/api/scans/${enc(scanId)}/derivatives/retry`,
+  scanPreview: (scanId: string) => `/api/scans/${enc(scanId)}/preview`,
+  scanInkLines: (scanId: string) => `/api/scans/${enc(scanId)}/ink-lines`,
   series: '/api/series',
   seriesCsv: '/api/series.csv',
   people: '/api/people',
   health: '/api/health',
 } as const;
+
+/** IIIF paths (outside /api; Bearer token as for the API). */
+export const IIIF = {
+  /** Image API 3.0 base URI of a scan (the `id` of its info.json); GET on it redirects (303) to info.json. */
+  imageBase: (scanId: string) => `/iiif/3/${enc(scanId)}`,
+  info: (scanId: string) => `/iiif/3/${enc(scanId)}/info.json`,
+  /** An image request, e.g. iiifImage(id, 'full', '!2400,2400') → …/full/!2400,2400/0/default.jpg. */
+  image: (scanId: string, region = 'full', size = 'max', rotation = '0', quality = 'default', format = 'jpg') =>
+    `/iiif/3/${enc(scanId)}/${region}/${size}/${rotation}/${quality}.${format}`,
+  /** Presentation API 3.0 manifest of one scan. */
+  manifest: (scanId: string) => `/iiif/3/${enc(scanId)}/manifest`,
+  /** Presentation API 3.0 collection of the manifests of one archival box. */
+  boxCollection: (collection: string, box: string) => `/iiif/collection/box/${enc(collection)}/${enc(box)}`,
+} as const;
+
+/** Size of the IIIF tiles the worker makes, px. */
+export const IIIF_TILE_SIZE_PX = 512;

@@ -1,0 +1,82 @@
+import type { ApiErrorCode } from './errors';
+import type { ScanSummary } from './scans';
+
+/** What became of one uploaded file. */
+export const INTAKE_OUTCOMES = ['stored', 'duplicate', 'rejected'] as const;
+export type IntakeOutcome = (typeof INTAKE_OUTCOMES)[number];
+
+export interface IntakeCounts {
+  stored: number;
+  duplicate: number;
+  rejected: number;
+}
+
+/** Body of POST /api/intake/batches. */
+export interface IntakeBatchInput {
+  /** The archivist's name for the batch, e.g. "Box 14, Krovik 1931". */
+  label: string;
+}
+
+export interface IntakeBatch {
+  id: string;
+  label: string;
+  /** ISO 8601 UTC. */
+  createdAt: string;
+  createdByName: string;
+  /** Files sent to the batch so far, whatever their outcome. */
+  fileCount: number;
+  counts: IntakeCounts;
+  /** True once an inventory CSV has been imported. */
+  hasInventory: boolean;
+}
+
+/** One file sent to a batch, as the batch summary lists it. */
+export interface IntakeFileRecord {
+  fileName: string;
+  outcome: IntakeOutcome;
+  /** Why it was rejected or is a duplicate; null when stored. */
+  reason: string | null;
+  code: ApiErrorCode | null;
+  /** Scans the file gave (stored) or matched (duplicate). */
+  scanIds: string[];
+  /** ISO 8601 UTC. */
+  at: string;
+}
+
+export interface IntakeBatchDetail extends IntakeBatch {
+  files: IntakeFileRecord[];
+  scans: ScanSummary[];
+}
+
+/** Optional multipart fields sent with the `file` part of POST /api/intake/batches/:id/files. */
+export interface IntakeFileFields {
+  stationId?: string;
+  chartFormId?: string;
+  /** ISO 8601 UTC. */
+  periodStart?: string;
+}
+
+/** Answer of POST /api/intake/batches/:id/files (201 stored, 409 duplicate; a rejected file answers 4xx ApiErrorBody). */
+export interface IntakeFileResult {
+  fileName: string;
+  outcome: IntakeOutcome;
+  reason?: string;
+  code?: ApiErrorCode;
+  scans: ScanSummary[];
+  /** For a duplicate: the scan already holding these bytes. */
+  existingScanId?: string;
+}
+
+/** Header names of an inventory CSV, in any order, case-insensitive (extra columns are ignored). */
+export const INVENTORY_COLUMNS = ['file name', 'station', 'chart on', 'chart off', 'box', 'folder', 'notes'] as const;
+export type InventoryColumn = (typeof INVENTORY_COLUMNS)[number];
+
+/** Answer of POST /api/intake/batches/:id/inventory (body text/csv). `line` counts from 1 at the header row. */
+export interface InventoryMatch {
+  matched: { line: number; fileName: string; scanIds: string[] }[];
+  rowsWithoutFile: { line: number; fileName: string }[];
+  filesWithoutRow: { fileName: string; scanIds: string[] }[];
+}
+
+export const INTAKE_BATCH_SORT_KEYS = ['createdAt', 'label'] as const;
+export type IntakeBatchSortKey = (typeof INTAKE_BATCH_SORT_KEYS)[number];
