@@ -4,7 +4,7 @@ import { chartWindow, type ChartWindow, columnX } from './chart-window';
 import { findBandRuns, findCoarseRuns, measureLineWidthPx, type ColumnRuns } from './column-runs';
 import { estimateInkContrast, type InkContrast } from './ink-contrast';
 import type { InkSpan, InkTrace } from './ink-trace';
-import { DEFAULT_PATH_COSTS, type PathCosts, runReward, searchInkPath } from './path-search';
+import { DEFAULT_PATH_COSTS, type PathCosts, type PathSeed, runReward, searchInkPath } from './path-search';
 import type { InkColour, RawImage } from './raw-image';
 
 export interface FollowInkOptions {
@@ -43,13 +43,14 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
   const contrast = estimateInkContrast(image, window, { inkColour: options.inkColour, seed: options.seed });
   const provisionalWidthPx = PROVISIONAL_WIDTH_MM * window.pxPerMm;
   const costs = { ...DEFAULT_PATH_COSTS, ...options.costs };
-  const band = findBand(image, window, contrast, provisionalWidthPx, costs);
+  const seedColumn = options.seed ? Math.floor(options.seed.xPx - window.rowShift[clampRow(window, options.seed.yPx)]) - window.x0 : -1;
+  const seed =
+    options.seed && seedColumn >= 0 && seedColumn < window.rowTop.length
+      ? { column: seedColumn, yPx: options.seed.yPx, radiusPx: 2 * provisionalWidthPx }
+      : undefined;
+  const band = findBand(image, window, contrast, provisionalWidthPx, costs, seed);
   const runs = findBandRuns(image, window, band.top, band.bottom, contrast, provisionalWidthPx);
   const widthPx = measureLineWidthPx(runs, provisionalWidthPx);
-  const seed =
-    options.seed && options.seed.xPx >= window.x0 && options.seed.xPx < window.x1
-      ? { column: Math.floor(options.seed.xPx) - window.x0, yPx: options.seed.yPx, radiusPx: 2 * widthPx }
-      : undefined;
   const chosen = searchInkPath(runs, widthPx, costs, seed);
 
   const points: PointList = { x: [], y: [], confidence: [], column: [] };
@@ -92,6 +93,7 @@ function findBand(
   contrast: InkContrast,
   widthPx: number,
   costs: PathCosts,
+  seed: PathSeed | undefined,
 ): { top: Int32Array; bottom: Int32Array } {
   const columnStep = Math.max(1, Math.round(1.2 * widthPx));
   const rowStep = Math.max(1, Math.round(widthPx / 2.5));
@@ -99,7 +101,8 @@ function findBand(
   if (columnStep < 2) return { top: window.rowTop, bottom: window.rowBottom };
   const coarse = findCoarseRuns(image, window, contrast, columnStep, rowStep, widthPx);
   const coarseWidthPx = Math.max(widthPx, measureLineWidthPx(coarse, widthPx));
-  const chosen = searchInkPath(coarse, coarseWidthPx, costs, undefined, rowStep);
+  const coarseSeed = seed && { column: Math.floor(seed.column / columnStep), yPx: seed.yPx, radiusPx: seed.radiusPx + rowStep };
+  const chosen = searchInkPath(coarse, coarseWidthPx, costs, coarseSeed, rowStep);
   const top = new Int32Array(columns);
   const bottom = new Int32Array(columns);
   const margin = Math.ceil(2 * widthPx + 2 * rowStep + 2);
@@ -264,6 +267,10 @@ function markLongRuns(runs: ColumnRuns, chosen: Int16Array, widthPx: number): Ui
     if (length > expected + 1.5 * widthPx) long[i] = 1;
   }
   return long;
+}
+
+function clampRow(window: ChartWindow, y: number): number {
+  return Math.min(window.rowShift.length - 1, Math.max(0, Math.floor(y)));
 }
 
 /** Neighbouring tick columns belong to one stroke; its foot is their mean position. */
