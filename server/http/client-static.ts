@@ -29,7 +29,7 @@ export function clientStatic(clientDir: string, logger: Logger): Router {
   router.get(/^(?!\/api(\/|$)).*/, (req, res, next) => {
     if (!req.accepts('html')) return next();
     res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(indexPath);
+    res.sendFile(indexPath, { dotfiles: 'allow' });
   });
   return router;
 }

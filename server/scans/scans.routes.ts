@@ -33,7 +33,7 @@ export function scansRoutes({ db, storage, config }: AppDeps): Router {
   router.get('/:scanId/preview', mayRead, async (req, res) => {
     const previewPath = await scansService.getPreviewPath(db, storage, parseScanId(req.params.scanId));
     // The preview is named by the master's hash, so it never changes under its URL.
-    res.sendFile(previewPath, { headers: { 'Content-Type': 'image/jpeg', 'Cache-Control': 'private, max-age=86400' } });
+    res.sendFile(previewPath, { dotfiles: 'allow', headers: { 'Content-Type': 'image/jpeg', 'Cache-Control': 'private, max-age=86400' } });
   });
 
   return router;
