@@ -42,7 +42,10 @@ export function testConfig(storageDir: string, overrides: Partial<Config> = {}):
 export async function createTestContext(overrides: Partial<Config> = {}): Promise<TestContext> {
   const parent = process.env['ISALLO_TEST_WORK_DIR'] ?? os.tmpdir();
   await fs.mkdir(parent, { recursive: true });
-  const storageDir = await fs.mkdtemp(path.join(parent, 'isallo-api-'));
+  const workDir = await fs.mkdtemp(path.join(parent, 'isallo-api-'));
+  // npm start keeps its files in .data/storage; a dot segment in the path must not hide them from send().
+  const storageDir = path.join(workDir, '.data', 'storage');
+  await fs.mkdir(storageDir, { recursive: true });
   const config = testConfig(storageDir, overrides);
   const db = createDb(config.databaseUrl, 4);
   const storage = createFileStorage(storageDir);
@@ -55,7 +58,7 @@ export async function createTestContext(overrides: Partial<Config> = {}): Promis
     config,
     async close() {
       await db.destroy();
-      await fs.rm(storageDir, { recursive: true, force: true });
+      await fs.rm(workDir, { recursive: true, force: true });
     },
   };
 }
