@@ -67,6 +67,8 @@ export interface ScanDetail extends ScanSummary {
   item: string;
   /** Condition of the paper: tears, stains, fading. */
   conditionNotes: string;
+  /** The archivist's general notes (an inventory row's notes land here). */
+  notes: string;
   /** Transcription of handwritten notes on the chart. */
   transcription: string;
   /** Why the scan was withdrawn; null unless status is withdrawn. */
@@ -101,6 +103,7 @@ export interface ScanMetadataInput {
   folder?: string;
   item?: string;
   conditionNotes?: string;
+  notes?: string;
   tags?: string[];
   transcription?: string;
   /** Dots per inch, > 0. */

@@ -1,0 +1,138 @@
+/** An ISO 8601 instant with a zone (Z or ±hh:mm); seconds and fraction optional. Local times are refused. */
+const INSTANT_PATTERN = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-]\d{2}:\d{2})$/;
+const DATE_PATTERN = /^\d{4}-\d{2}-\d{2}$/;
+const UUID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** Result of a shared body parser: the value, or field problems keyed by field name. */
+export type Parsed<T> = { ok: true; value: T } | { ok: false; details: Record<string, string> };
+
+/** Longest free-text field the API keeps, characters (transcriptions and history notes can be long). */
+export const MAX_TEXT_LENGTH = 20_000;
+/** Longest one-line field (names, codes, references), characters. */
+export const MAX_LINE_LENGTH = 300;
+
+/** ISO 8601 UTC string of an instant with a zone, or null when it is not one. */
+export function normalizeInstant(value: unknown): string | null {
+  if (typeof value !== 'string' || !INSTANT_PATTERN.test(value)) return null;
+  const ms = Date.parse(value);
+  return Number.isNaN(ms) ? null : new Date(ms).toISOString();
+}
+
+/** True for a real calendar date YYYY-MM-DD (2026-02-30 is not). */
+export function isCalendarDate(value: unknown): value is string {
+  if (typeof value !== 'string' || !DATE_PATTERN.test(value)) return false;
+  const ms = Date.parse(`${value}T00:00:00Z`);
+  return !Number.isNaN(ms) && new Date(ms).toISOString().slice(0, 10) === value;
+}
+
+export function isId(value: unknown): value is string {
+  return typeof value === 'string' && UUID_PATTERN.test(value);
+}
+
+/**
+ * Reads the fields of a JSON body one by one, collecting every problem in `details`.
+ * Each reader returns undefined when the key is absent (a PATCH leaves that field alone).
+ */
+export class FieldReader {
+  readonly details: Record<string, string> = {};
+  private readonly record: Record<string, unknown>;
+
+  constructor(body: unknown) {
+    this.record = typeof body === 'object' && body !== null && !Array.isArray(body) ? (body as Record<string, unknown>) : {};
+    if (this.record !== body) this.details['body'] = 'the body must be a JSON object';
+  }
+
+  has(key: string): boolean {
+    return this.record[key] !== undefined;
+  }
+
+  problem(key: string, message: string): void {
+    this.details[key] ??= message;
+  }
+
+  get isValid(): boolean {
+    return Object.keys(this.details).length === 0;
+  }
+
+  /** A string, trimmed; `isRequired` refuses an empty one. */
+  text(key: string, options: { isRequired?: boolean; maxLength?: number } = {}): string | undefined {
+    const value = this.record[key];
+    if (value === undefined) return undefined;
+    const maxLength = options.maxLength ?? MAX_LINE_LENGTH;
+    if (typeof value !== 'string') return this.fail(key, `${key} must be text`);
+    const trimmed = value.trim();
+    if (options.isRequired && trimmed === '') return this.fail(key, `${key} is required`);
+    if (trimmed.length > maxLength) return this.fail(key, `${key} must be at most ${maxLength} characters`);
+    return trimmed;
+  }
+
+  /** Text or null; an empty string reads as null. */
+  nullableText(key: string, maxLength = MAX_LINE_LENGTH): string | null | undefined {
+    if (this.record[key] === null) return null;
+    const text = this.text(key, { maxLength });
+    return text === '' ? null : text;
+  }
+
+  nullableNumber(key: string, range: { min?: number; max?: number; isPositive?: boolean } = {}): number | null | undefined {
+    const value = this.record[key];
+    if (value === undefined || value === null) return value as undefined | null;
+    if (typeof value !== 'number' || !Number.isFinite(value)) return this.fail(key, `${key} must be a number or null`);
+    if (range.isPositive && !(value > 0)) return this.fail(key, `${key} must be above 0`);
+    if (range.min !== undefined && value < range.min) return this.fail(key, `${key} must be at least ${range.min}`);
+    if (range.max !== undefined && value > range.max) return this.fail(key, `${key} must be at most ${range.max}`);
+    return value;
+  }
+
+  integer(key: string, min = 0): number | undefined {
+    const value = this.record[key];
+    if (value === undefined) return undefined;
+    if (typeof value !== 'number' || !Number.isInteger(value) || value < min) return this.fail(key, `${key} must be a whole number from ${min}`);
+    return value;
+  }
+
+  /** A calendar date YYYY-MM-DD or null. */
+  nullableDate(key: string): string | null | undefined {
+    const value = this.record[key];
+    if (value === undefined || value === null) return value as undefined | null;
+    if (!isCalendarDate(value)) return this.fail(key, `${key} must be a date YYYY-MM-DD or null`);
+    return value;
+  }
+
+  /** An ISO 8601 instant with a zone, normalised to UTC, or null. */
+  nullableInstant(key: string): string | null | undefined {
+    const value = this.record[key];
+    if (value === undefined || value === null) return value as undefined | null;
+    const instant = normalizeInstant(value);
+    if (instant === null) return this.fail(key, `${key} must be an ISO 8601 UTC instant, e.g. 1931-03-02T08:00Z, or null`);
+    return instant;
+  }
+
+  nullableId(key: string): string | null | undefined {
+    const value = this.record[key];
+    if (value === undefined || value === null) return value as undefined | null;
+    if (!isId(value)) return this.fail(key, `${key} must be an id or null`);
+    return value;
+  }
+
+  oneOf<T extends string>(key: string, values: readonly T[]): T | undefined {
+    const value = this.record[key];
+    if (value === undefined) return undefined;
+    if (typeof value !== 'string' || !(values as readonly string[]).includes(value)) return this.fail(key, `${key} must be one of: ${values.join(', ')}`);
+    return value as T;
+  }
+
+  /** A list of short strings, trimmed, empty ones dropped, duplicates removed. */
+  textList(key: string, maxItems = 50): string[] | undefined {
+    const value = this.record[key];
+    if (value === undefined) return undefined;
+    if (!Array.isArray(value) || value.length > maxItems || value.some((item) => typeof item !== 'string' || item.length > 100)) {
+      return this.fail(key, `${key} must be a list of at most ${maxItems} texts of up to 100 characters`);
+    }
+    return [...new Set((value as string[]).map((item) => item.trim()).filter((item) => item !== ''))];
+  }
+
+  private fail(key: string, message: string): undefined {
+    this.problem(key, message);
+    return undefined;
+  }
+}
