@@ -8,6 +8,13 @@ import * as createPinSet from './2026_12_02_0150_create_pin_set';
 import * as createInkLine from './2026_12_02_0160_create_ink_line';
 import * as createSeriesPoint from './2026_12_02_0170_create_series_point';
 import * as createDemoSeed from './2026_12_02_0180_create_demo_seed';
+import * as extendStation from './2026_12_02_0400_extend_station';
+import * as createInstrument from './2026_12_02_0410_create_instrument';
+import * as addChartFormVersion from './2026_12_02_0420_add_chart_form_version';
+import * as createIntakeBatch from './2026_12_02_0430_create_intake_batch';
+import * as createIntakeFile from './2026_12_02_0440_create_intake_file';
+import * as extendScan from './2026_12_02_0450_extend_scan';
+import * as createScanAudit from './2026_12_02_0460_create_scan_audit';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -24,4 +31,11 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_02_0160_create_ink_line': createInkLine,
   '2026_12_02_0170_create_series_point': createSeriesPoint,
   '2026_12_02_0180_create_demo_seed': createDemoSeed,
+  '2026_12_02_0400_extend_station': extendStation,
+  '2026_12_02_0410_create_instrument': createInstrument,
+  '2026_12_02_0420_add_chart_form_version': addChartFormVersion,
+  '2026_12_02_0430_create_intake_batch': createIntakeBatch,
+  '2026_12_02_0440_create_intake_file': createIntakeFile,
+  '2026_12_02_0450_extend_scan': extendScan,
+  '2026_12_02_0460_create_scan_audit': createScanAudit,
 };
