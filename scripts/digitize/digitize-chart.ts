@@ -32,16 +32,16 @@ export interface DigitizeResult {
 
 const HOUR_MS = 3_600_000;
 // The ink is followed a little beyond chart on / chart off: a drum clock error moves the line along the chart.
-const SPAN_MARGIN_HOURS = 1;
+const SPAN_MARGIN_HOURS = 2;
 // A found mark is matched to a listed one only within this much chart time (the clock error bound we accept).
 const MARK_MATCH_HOURS = 2;
 // A mark the others contradict by more than this is taken as misread (a steep stretch of line, not a mark).
-const MARK_OUTLIER_MINUTES = 20;
+const MARK_OUTLIER_MINUTES = 12;
 // A check reading the others contradict by more than this is taken as misread or mistyped.
 const CHECK_OUTLIER_HPA = 1.5;
 const DEFAULT_MAX_BRIDGE_MM = 0.5;
 // Longest spacing of samples inside one stretch of ink (a bridged pen skip, or the columns under a time mark).
-const MAX_STRETCH_SPACING_MINUTES = 60;
+const MAX_STRETCH_SPACING_MINUTES = 90;
 
 /** Registration → ink following → clock and instrument corrections → regular series. */
 export function digitizeChart(image: RawImage, chart: ChartFile, options: DigitizeOptions = {}): DigitizeResult {
@@ -243,19 +243,39 @@ function fitInstrument(chart: ChartFile, samples: StretchSample[]): InstrumentCo
   return null;
 }
 
-/** The line's pressure at a time, when two samples of one stretch bracket it and neither is off-scale. */
+/**
+ * The line's pressure at a check reading's time. The observer usually makes a time mark while reading the
+ * barometer, so the few minutes around the time are left out: a straight line is fitted to the samples 6–40
+ * minutes either side (same stretch, not off-scale; at least two on each side).
+ */
 function interpolateAt(samples: StretchSample[], timeMs: number): number | null {
+  const near = 6 * 60_000;
+  const far = 40 * 60_000;
   let low = 0;
-  let high = samples.length - 1;
-  if (high < 1 || timeMs < samples[0].timeMs || timeMs > samples[high].timeMs) return null;
-  while (high - low > 1) {
+  let high = samples.length;
+  while (low < high) {
     const mid = (low + high) >> 1;
-    if (samples[mid].timeMs <= timeMs) low = mid;
+    if (samples[mid].timeMs < timeMs - far) low = mid + 1;
     else high = mid;
   }
-  const a = samples[low];
-  const b = samples[high];
-  if (a.isOffScale || b.isOffScale || a.stretch !== b.stretch || b.timeMs - a.timeMs > MAX_STRETCH_SPACING_MINUTES * 60_000) return null;
-  const f = b.timeMs === a.timeMs ? 0 : (timeMs - a.timeMs) / (b.timeMs - a.timeMs);
-  return a.pressureHpa + f * (b.pressureHpa - a.pressureHpa);
+  const used: StretchSample[] = [];
+  for (let i = low; i < samples.length && samples[i].timeMs <= timeMs + far; i++) {
+    const s = samples[i];
+    if (!s.isOffScale && Math.abs(s.timeMs - timeMs) >= near) used.push(s);
+  }
+  const before = used.filter((s) => s.timeMs < timeMs);
+  const after = used.filter((s) => s.timeMs > timeMs);
+  if (before.length < 2 || after.length < 2 || before[before.length - 1].stretch !== after[0].stretch) return null;
+  const same = used.filter((s) => s.stretch === after[0].stretch);
+  const meanT = same.reduce((sum, s) => sum + (s.timeMs - timeMs), 0) / same.length;
+  const meanP = same.reduce((sum, s) => sum + s.pressureHpa, 0) / same.length;
+  let sxx = 0;
+  let sxy = 0;
+  for (const s of same) {
+    const dt = s.timeMs - timeMs - meanT;
+    sxx += dt * dt;
+    sxy += dt * (s.pressureHpa - meanP);
+  }
+  const slope = sxx > 0 ? sxy / sxx : 0;
+  return meanP - slope * meanT;
 }

@@ -29,7 +29,9 @@ export function truthAt(truth: TruthRow[], timeMs: number): TruthRow | null {
   const a = truth[low];
   const b = truth[high];
   const f = b.timeMs === a.timeMs ? 0 : (timeMs - a.timeMs) / (b.timeMs - a.timeMs);
-  return { timeMs, pressureHpa: a.pressureHpa + f * (b.pressureHpa - a.pressureHpa), isInked: a.isInked && b.isInked };
+  // Only rows with weight count: a time exactly on an inked row is inked even if the next row is a pen skip.
+  const isInked = (f === 1 || a.isInked) && (f === 0 || b.isInked);
+  return { timeMs, pressureHpa: a.pressureHpa + f * (b.pressureHpa - a.pressureHpa), isInked };
 }
 
 export interface SeriesScore {

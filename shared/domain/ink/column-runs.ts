@@ -208,16 +208,27 @@ export function findBandRuns(
   return runs;
 }
 
-/** Median vertical length of strong runs: the pen line's width in pixels as seen down a column. */
-export function measureLineWidthPx(runs: ColumnRuns, fallbackPx: number): number {
+/** How wide the pen line looks down a column: its equivalent width and the length of its runs above threshold. */
+export interface LineWidth {
+  /** Median mass/peak of strong runs: the width of a solid line with the same ink, px. */
+  widthPx: number;
+  /** Median length of strong runs above the threshold (includes blurred edges), px. */
+  runLengthPx: number;
+}
+
+/** Measures the line from strong runs (peak ≥ 0.6); falls back to fallbackPx when too few are found. */
+export function measureLineWidth(runs: ColumnRuns, fallbackPx: number): LineWidth {
+  const widths: number[] = [];
   const lengths: number[] = [];
   for (let i = 0; i < runs.columns; i++) {
     for (let k = 0; k < runs.count[i]; k++) {
       const j = i * runs.slots + k;
-      if (runs.peak[j] >= 0.6) lengths.push(runs.bottom[j] - runs.top[j]);
+      if (runs.peak[j] < 0.6) continue;
+      lengths.push(runs.bottom[j] - runs.top[j]);
+      widths.push(runs.mass[j] / runs.peak[j]);
     }
   }
-  if (lengths.length < 10) return fallbackPx;
-  const sorted = Float32Array.from(lengths).sort();
-  return Math.max(1.5, sorted[sorted.length >> 1]);
+  if (lengths.length < 10) return { widthPx: fallbackPx, runLengthPx: fallbackPx };
+  const middle = (values: number[]) => Float32Array.from(values).sort()[values.length >> 1];
+  return { widthPx: Math.max(1, middle(widths)), runLengthPx: Math.max(1.5, middle(lengths)) };
 }

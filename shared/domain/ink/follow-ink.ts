@@ -1,7 +1,7 @@
 import type { ChartForm } from '../chart-form';
 import { pixelToReading, type RegistrationFit } from '../registration';
 import { chartWindow, type ChartWindow, columnX } from './chart-window';
-import { findBandRuns, findCoarseRuns, measureLineWidthPx, type ColumnRuns } from './column-runs';
+import { findBandRuns, findCoarseRuns, type ColumnRuns, type LineWidth, measureLineWidth } from './column-runs';
 import { estimateInkContrast, type InkContrast } from './ink-contrast';
 import type { InkSpan, InkTrace } from './ink-trace';
 import { DEFAULT_PATH_COSTS, type PathCosts, type PathSeed, runReward, searchInkPath } from './path-search';
@@ -50,13 +50,15 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
       : undefined;
   const band = findBand(image, window, contrast, provisionalWidthPx, costs, seed);
   const runs = findBandRuns(image, window, band.top, band.bottom, contrast, provisionalWidthPx);
-  const widthPx = measureLineWidthPx(runs, provisionalWidthPx);
+  const line = measureLineWidth(runs, provisionalWidthPx);
+  // Run lengths (threshold to threshold) drive the search and the steep-stroke logic; the equivalent width is reported.
+  const widthPx = line.runLengthPx;
   const chosen = searchInkPath(runs, widthPx, costs, seed);
 
   const points: PointList = { x: [], y: [], confidence: [], column: [] };
   const gapColumns: { first: number; last: number }[] = [];
   const ticks: { x: number; y: number }[] = [];
-  collectPoints(runs, window, chosen, widthPx, points, gapColumns, ticks);
+  collectPoints(runs, window, chosen, line, points, gapColumns, ticks);
 
   const maxBridgePx = (options.maxBridgeMm ?? DEFAULT_MAX_BRIDGE_MM) * window.pxPerMm;
   const trace = clipToSpan(form, fit, points, startHours, endHours);
@@ -66,18 +68,18 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
       endHours,
       bridgeHours: (options.maxBridgeMm ?? DEFAULT_MAX_BRIDGE_MM) / form.mmPerHour,
     }),
-    ...offScaleSpans(form, fit, trace, widthPx / (window.pxPerMm * form.mmPerUnit)),
+    ...offScaleSpans(form, fit, trace, line.widthPx / (window.pxPerMm * form.mmPerUnit)),
   ].sort((a, b) => a.startXPx - b.startXPx);
   return {
     xPx: Float64Array.from(trace.x),
     yPx: Float64Array.from(trace.y),
     confidence: Float32Array.from(trace.confidence),
     spans,
-    timeMarks: groupTicks(ticks, widthPx).filter((m) => {
+    timeMarks: groupTicks(ticks, line.widthPx).filter((m) => {
       const hours = pixelToReading(form, fit, m.xPx, m.yPx).hours;
       return hours >= startHours && hours <= endHours;
     }),
-    lineWidthPx: widthPx,
+    lineWidthPx: line.widthPx,
     contrastMode: contrast.mode,
   };
 }
@@ -100,7 +102,7 @@ function findBand(
   const columns = window.rowTop.length;
   if (columnStep < 2) return { top: window.rowTop, bottom: window.rowBottom };
   const coarse = findCoarseRuns(image, window, contrast, columnStep, rowStep, widthPx);
-  const coarseWidthPx = Math.max(widthPx, measureLineWidthPx(coarse, widthPx));
+  const coarseWidthPx = Math.max(widthPx, measureLineWidth(coarse, widthPx).runLengthPx);
   const coarseSeed = seed && { column: Math.floor(seed.column / columnStep), yPx: seed.yPx, radiusPx: seed.radiusPx + rowStep };
   const chosen = searchInkPath(coarse, coarseWidthPx, costs, coarseSeed, rowStep);
   const top = new Int32Array(columns);
@@ -161,13 +163,15 @@ function collectPoints(
   runs: ColumnRuns,
   window: ChartWindow,
   chosen: Int16Array,
-  widthPx: number,
+  line: LineWidth,
   points: PointList,
   gapColumns: { first: number; last: number }[],
   ticks: { x: number; y: number }[],
 ): void {
   const { slots } = runs;
-  const half = widthPx / 2;
+  const widthPx = line.runLengthPx;
+  // A run's end is where the score crosses the threshold: the line's centre is half a run length inside it.
+  const half = line.runLengthPx / 2;
   const long = markLongRuns(runs, chosen, widthPx);
   let gapStart = -1;
   let lastY = NaN;
@@ -194,6 +198,7 @@ function collectPoints(
     // says where it is; the ordinary runs before and after it say whether the pen went through it or only up and back.
     let last = i;
     while (last + 1 < runs.columns && chosen[last + 1] >= 0 && long[last + 1] === 1) last++;
+    const first = i;
     const middle = (i + last) >> 1;
     const m = middle * slots + chosen[middle];
     const upper = runs.top[m] + half;
@@ -205,20 +210,39 @@ function collectPoints(
     const exitY = Math.abs(nextY - upper) < Math.abs(nextY - lower) ? upper : lower;
     i = last;
     if (exitY === entryY) {
-      // In and out at the same end: a time mark standing on the line. The line under it is hidden, so the
-      // points on either side carry it across.
-      ticks.push({ x: columnX(window, middle, entryY), y: entryY });
+      // In and out at the same end: the line runs along that end of a stroke standing on it — a time mark when
+      // the stroke is about a pen wide, otherwise another line touching this one.
+      const isUpper = entryY === upper;
+      for (let c = first; c <= last; c++) {
+        const q = c * slots + chosen[c];
+        const y = isUpper ? runs.top[q] + half : runs.bottom[q] - half;
+        points.x.push(columnX(window, c, y));
+        points.y.push(y);
+        points.confidence.push(0.5 * confidenceOf(runs, c, chosen[c], widthPx));
+        points.column.push(c);
+      }
+      if (last - first + 1 <= 2 * line.widthPx + 3) ticks.push({ x: columnX(window, middle, entryY), y: entryY });
+      lastY = entryY;
       continue;
     }
+    // The stroke's centre across its width: the mass-weighted mean column of the stretch (sub-column).
+    let massSum = 0;
+    let moment = 0;
+    for (let c = first; c <= last; c++) {
+      const mass = runs.mass[c * slots + chosen[c]];
+      massSum += mass;
+      moment += mass * c;
+    }
+    const centreColumn = massSum > 0 ? moment / massSum : middle;
     const confidence = confidenceOf(runs, middle, chosen[middle], widthPx);
-    points.x.push(columnX(window, middle, entryY), columnX(window, middle, exitY));
+    points.x.push(columnX(window, centreColumn, entryY), columnX(window, centreColumn, exitY));
     points.y.push(entryY, exitY);
     points.confidence.push(confidence, confidence);
     points.column.push(middle, middle);
     lastY = exitY;
   }
   if (gapStart >= 0) gapColumns.push({ first: gapStart, last: runs.columns - 1 });
-  dropPointsBesideTicks(points, ticks, widthPx);
+  dropPointsBesideTicks(points, ticks, line.widthPx);
 }
 
 /** The columns just beside a time mark still hold some of its stroke, which pulls their centres off the line. */

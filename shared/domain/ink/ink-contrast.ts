@@ -31,12 +31,16 @@ export interface InkContrastOptions {
 const MAX_SAMPLES = 20_000;
 // Colour ink needs at least this share of its contrast left after removing the grid direction.
 const MIN_ORTHOGONAL_SHARE = 0.3;
-const MIN_THRESHOLD = 0.22;
+const MIN_THRESHOLD = 0.14;
 
 interface Samples {
   r: Float32Array;
   g: Float32Array;
   b: Float32Array;
+  /** Difference to the pixel two columns right, per channel (for the noise estimate). */
+  nr: Float32Array;
+  ng: Float32Array;
+  nb: Float32Array;
   count: number;
 }
 
@@ -48,6 +52,9 @@ function collectSamples(image: RawImage, window: ChartWindow): Samples {
   const r = new Float32Array(capacity);
   const g = new Float32Array(capacity);
   const b = new Float32Array(capacity);
+  const nr = new Float32Array(capacity);
+  const ng = new Float32Array(capacity);
+  const nb = new Float32Array(capacity);
   const { data, width, channels } = image;
   const colour = isColourImage(image);
   let count = 0;
@@ -60,10 +67,14 @@ function collectSamples(image: RawImage, window: ChartWindow): Samples {
       r[count] = data[k];
       g[count] = colour ? data[k + 1] : data[k];
       b[count] = colour ? data[k + 2] : data[k];
+      const m = x + 2 < width ? k + 2 * channels : k;
+      nr[count] = data[m] - data[k];
+      ng[count] = colour ? data[m + 1] - data[k + 1] : nr[count];
+      nb[count] = colour ? data[m + 2] - data[k + 2] : nr[count];
       count++;
     }
   }
-  return { r, g, b, count };
+  return { r, g, b, nr, ng, nb, count };
 }
 
 function median(values: Float32Array, count: number): number {
@@ -120,10 +131,10 @@ export function estimateInkContrast(image: RawImage, window: ChartWindow, option
   const darkLimit = Math.max(18, 6 * paperNoise);
 
   if (isColourImage(image)) {
-    const colour = colourContrast(dr, dg, db, n, darkLimit, paper, given);
+    const colour = colourContrast(samples, dr, dg, db, n, darkLimit, paper, given);
     if (colour !== null) return colour;
   }
-  return greyContrast(dr, dg, db, n, darkLimit, paper, given);
+  return greyContrast(samples, dr, dg, db, n, darkLimit, paper, given);
 }
 
 function estimatePaperNoise(dr: Float32Array, dg: Float32Array, db: Float32Array, n: number): number {
@@ -134,6 +145,7 @@ function estimatePaperNoise(dr: Float32Array, dg: Float32Array, db: Float32Array
 }
 
 function colourContrast(
+  samples: Samples,
   dr: Float32Array,
   dg: Float32Array,
   db: Float32Array,
@@ -194,9 +206,19 @@ function colourContrast(
   const direction = normalise(orthogonal);
 
   const scores = new Float32Array(n);
-  for (let i = 0; i < n; i++) scores[i] = dr[i] * direction[0] + dg[i] * direction[1] + db[i] * direction[2];
+  // Noise from differences between near neighbours on bare paper: stains and uneven paper change slowly and
+  // must not raise the threshold; grid edges are left out with the dark samples.
+  const steps = new Float32Array(n);
+  let stepCount = 0;
+  for (let i = 0; i < n; i++) {
+    scores[i] = dr[i] * direction[0] + dg[i] * direction[1] + db[i] * direction[2];
+    if (dr[i] * dr[i] + dg[i] * dg[i] + db[i] * db[i] < darkLimit * darkLimit) {
+      steps[stepCount++] = Math.abs(samples.nr[i] * direction[0] + samples.ng[i] * direction[1] + samples.nb[i] * direction[2]);
+    }
+  }
   const full = fullInkScore(scores, given ? dot(ink, direction) : 0);
-  const noiseScore = (1.4826 * quantile(absolute(scores), 0.5)) / full;
+  // Median |difference| of two independent normal values → σ: divide by 0.6745·√2 (common practice).
+  const noiseScore = quantile(steps, 0.5, stepCount) / (0.6745 * Math.SQRT2) / full;
   return {
     mode: 'colour',
     offset: dot(paper, direction) / full,
@@ -209,12 +231,6 @@ function colourContrast(
   };
 }
 
-function absolute(values: Float32Array): Float32Array {
-  const out = new Float32Array(values.length);
-  for (let i = 0; i < values.length; i++) out[i] = Math.abs(values[i]);
-  return out;
-}
-
 /** Score of "full" ink: the strongest few per mille of samples (the pen line's core), not below half the nominal. */
 function fullInkScore(scores: Float32Array, nominal: number): number {
   const top = quantile(scores, 0.998);
@@ -222,6 +238,7 @@ function fullInkScore(scores: Float32Array, nominal: number): number {
 }
 
 function greyContrast(
+  samples: Samples,
   dr: Float32Array,
   dg: Float32Array,
   db: Float32Array,
@@ -245,7 +262,12 @@ function greyContrast(
   // The heavy printed lines are the darkest common non-ink pixels: ink must be darker than them.
   const gridDarkness = darkCount > 0 ? Math.min(quantile(dark.slice(0, darkCount), 0.9), 0.6 * inkDarkness) : darkLimit;
   const span = Math.max(1e-6, inkDarkness - gridDarkness);
-  const noiseScore = (1.4826 * quantile(absolute(darkness), 0.5)) / span;
+  const steps = new Float32Array(n);
+  let stepCount = 0;
+  for (let i = 0; i < n; i++) {
+    if (Math.abs(darkness[i]) < darkLimit) steps[stepCount++] = Math.abs(lr * samples.nr[i] + lg * samples.ng[i] + lb * samples.nb[i]);
+  }
+  const noiseScore = quantile(steps, 0.5, stepCount) / (0.6745 * Math.SQRT2) / span;
   const paperLuma = lr * paper[0] + lg * paper[1] + lb * paper[2];
   return {
     mode: 'grey',

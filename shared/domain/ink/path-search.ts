@@ -20,6 +20,12 @@ export interface PathCosts {
   gapAllowancePerColumn: number;
   /** Small cost on centre changes between short runs, to stop zigzags between touching lines. */
   centreCostPerWidth2: number;
+  /**
+   * Cost per unit change of reward between consecutive runs beyond a dead zone: a pen line fades slowly, so a
+   * sudden drop from full ink to a faint line is a hop onto another trace (also checked across a gap).
+   */
+  strengthChangeCost: number;
+  strengthDeadZone: number;
 }
 
 export const DEFAULT_PATH_COSTS: PathCosts = {
@@ -32,6 +38,8 @@ export const DEFAULT_PATH_COSTS: PathCosts = {
   gapAllowanceWidths: 2,
   gapAllowancePerColumn: 0.1,
   centreCostPerWidth2: 0.1,
+  strengthChangeCost: 8,
+  strengthDeadZone: 0.15,
 };
 
 /** A pixel the path must pass within `radiusPx` of (a click on the pen line). */
@@ -71,14 +79,20 @@ export function searchInkPath(
   let previousRun = new Float64Array(slots);
   let currentRun = new Float64Array(slots);
   const unary = new Float64Array(slots);
+  let previousReward = new Float64Array(slots);
+  let currentReward = new Float64Array(slots);
   let gapCost = seed && seed.column === 0 ? FORBIDDEN : 0;
   let gapY = NaN;
+  let gapReward = NaN;
+  const strengthCost = (a: number, b: number): number => costs.strengthChangeCost * Math.max(0, Math.abs(a - b) - costs.strengthDeadZone);
   let gapStart = 0;
 
   const fillUnary = (i: number): void => {
     for (let k = 0; k < runs.count[i]; k++) {
       const j = i * slots + k;
-      let cost = costs.inkFloor - runReward(runs, j, widthPx);
+      const reward = runReward(runs, j, widthPx);
+      currentReward[k] = reward;
+      let cost = costs.inkFloor - reward;
       if (seed && seed.column === i && Math.abs(runs.centre[j] - seed.yPx) > seed.radiusPx && !(runs.top[j] <= seed.yPx && runs.bottom[j] >= seed.yPx)) {
         cost += FORBIDDEN;
       }
@@ -89,6 +103,7 @@ export function searchInkPath(
   fillUnary(0);
   for (let k = 0; k < runs.count[0]; k++) {
     previousRun[k] = unary[k];
+    previousReward[k] = currentReward[k];
     backRun[k] = START;
   }
   backGap[0] = START;
@@ -107,12 +122,13 @@ export function searchInkPath(
       const bottom = runs.bottom[j];
       const isShort = bottom - top <= 2 * widthPx;
       const away = Number.isNaN(gapY) ? 0 : Math.max(0, Math.abs(runs.centre[j] - gapY) - allowancePx);
-      let best = gapCost + costs.gapEntryCost + (costs.gapReturnCostPerWidth * away) / widthPx;
+      const reward = currentReward[k];
+      let best = gapCost + costs.gapEntryCost + (costs.gapReturnCostPerWidth * away) / widthPx + (Number.isNaN(gapReward) ? 0 : strengthCost(reward, gapReward));
       let from = FROM_GAP;
       for (let p = 0; p < prevCount; p++) {
         const q = prevBase + p;
         const separation = Math.max(0, top - runs.bottom[q], runs.top[q] - bottom) - contactSlackPx;
-        let cost = previousRun[p];
+        let cost = previousRun[p] + strengthCost(reward, previousReward[p]);
         if (separation > 0) cost += costs.breakCost + costs.breakCostPerWidth2 * (separation / widthPx) ** 2;
         if (isShort && runs.bottom[q] - runs.top[q] <= 2 * widthPx) {
           cost += costs.centreCostPerWidth2 * ((runs.centre[j] - runs.centre[q]) / widthPx) ** 2;
@@ -138,6 +154,7 @@ export function searchInkPath(
     }
     if (from !== FROM_GAP) {
       gapY = runs.centre[prevBase + from];
+      gapReward = previousReward[from];
       gapStart = i;
     }
     gapCost = nextGap + (seed && seed.column === i ? FORBIDDEN : 0);
@@ -146,6 +163,9 @@ export function searchInkPath(
     const swap = previousRun;
     previousRun = currentRun;
     currentRun = swap;
+    const swapReward = previousReward;
+    previousReward = currentReward;
+    currentReward = swapReward;
   }
 
   // Best end state, then walk the back pointers.
