@@ -39,6 +39,8 @@ const MARK_MATCH_HOURS = 2;
 const MARK_OUTLIER_MINUTES = 12;
 // A check reading the others contradict by more than this is taken as misread or mistyped.
 const CHECK_OUTLIER_HPA = 1.5;
+// Lines fitted before and after a check reading must agree this well for the reading to be used.
+const CHECK_SIDES_AGREE_HPA = 0.5;
 const DEFAULT_MAX_BRIDGE_MM = 0.5;
 // Longest spacing of samples inside one stretch of ink (a bridged pen skip, or the columns under a time mark).
 const MAX_STRETCH_SPACING_MINUTES = 90;
@@ -266,12 +268,20 @@ function interpolateAt(samples: StretchSample[], timeMs: number): number | null 
   const before = used.filter((s) => s.timeMs < timeMs);
   const after = used.filter((s) => s.timeMs > timeMs);
   if (before.length < 2 || after.length < 2 || before[before.length - 1].stretch !== after[0].stretch) return null;
-  const same = used.filter((s) => s.stretch === after[0].stretch);
-  const meanT = same.reduce((sum, s) => sum + (s.timeMs - timeMs), 0) / same.length;
-  const meanP = same.reduce((sum, s) => sum + s.pressureHpa, 0) / same.length;
+  const fromBefore = lineAt(before, timeMs);
+  const fromAfter = lineAt(after, timeMs);
+  // The two sides disagree: the pressure jumped (or the line is misread) right at the reading; it cannot check the chart.
+  if (Math.abs(fromBefore - fromAfter) > CHECK_SIDES_AGREE_HPA) return null;
+  return lineAt([...before, ...after], timeMs);
+}
+
+/** Least-squares straight line through the samples, evaluated at timeMs. */
+function lineAt(samples: StretchSample[], timeMs: number): number {
+  const meanT = samples.reduce((sum, s) => sum + (s.timeMs - timeMs), 0) / samples.length;
+  const meanP = samples.reduce((sum, s) => sum + s.pressureHpa, 0) / samples.length;
   let sxx = 0;
   let sxy = 0;
-  for (const s of same) {
+  for (const s of samples) {
     const dt = s.timeMs - timeMs - meanT;
     sxx += dt * dt;
     sxy += dt * (s.pressureHpa - meanP);
