@@ -134,7 +134,8 @@ function findBand(
     let low = Math.min(extentLow[c], extentLow[d]);
     let high = Math.max(extentHigh[c], extentHigh[d]);
     let pad = margin;
-    if (low === Infinity) {
+    // Next to a coarse gap (a pen skip, or a jump too steep for the sparse columns) reach to the ink on both sides.
+    if (chosen[c] < 0 || chosen[d] < 0) {
       for (const n of [nearestLeft[c], nearestRight[d]]) {
         if (n < 0) continue;
         low = Math.min(low, extentLow[n]);
@@ -200,9 +201,16 @@ function collectPoints(
     while (last + 1 < runs.columns && chosen[last + 1] >= 0 && long[last + 1] === 1) last++;
     const first = i;
     const middle = (i + last) >> 1;
-    const m = middle * slots + chosen[middle];
-    const upper = runs.top[m] + half;
-    const lower = runs.bottom[m] - half;
+    // Judge the stretch by its whole extent: on a blurred or noisy scan one column may hold only part of the stroke.
+    let sectionTop = Infinity;
+    let sectionBottom = -Infinity;
+    for (let c = i; c <= last; c++) {
+      const q = c * slots + chosen[c];
+      sectionTop = Math.min(sectionTop, runs.top[q]);
+      sectionBottom = Math.max(sectionBottom, runs.bottom[q]);
+    }
+    const upper = sectionTop + half;
+    const lower = sectionBottom - half;
     const next = last + 1 < runs.columns && chosen[last + 1] >= 0 ? runs.centre[(last + 1) * slots + chosen[last + 1]] : NaN;
     const previousY = Number.isNaN(lastY) ? (Number.isNaN(next) ? (upper + lower) / 2 : next) : lastY;
     const nextY = Number.isNaN(next) ? previousY : next;
