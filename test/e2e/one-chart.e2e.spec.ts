@@ -91,12 +91,15 @@ describe('one chart from upload to station series', () => {
     // Act 1: the archivist uploads the scan for Saltmere Bay School.
     await signIn(page, server.url, 'archivist@isallo.test', DEMO_PASSWORD);
     await page.getByTestId('nav-archive').click();
+    // The one-scan upload with full metadata sits on the Intake tab, below the batch drop zone.
+    await page.getByTestId('archive-tab-intake').click();
     await page.getByTestId('upload-file').setInputFiles(scanPath);
     await chooseOption(page, 'upload-station', 'Saltmere Bay School');
     await chooseOption(page, 'upload-chart-form', 'Generated weekly 950–1050 hPa');
     await page.getByTestId('upload-period-start').fill('2026-04-06T00:00Z');
     await page.getByTestId('upload-submit').click();
     await page.getByTestId('upload-result').filter({ hasText: /stored/i }).waitFor();
+    await page.getByTestId('archive-tab-catalogue').click();
     await page.getByTestId('catalogue-row').filter({ hasText: 'saltmere-week-15.png' }).waitFor();
     await signOut(page);
 

@@ -1,15 +1,15 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input, model, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
-import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
-import { MatSelectModule } from '@angular/material/select';
 import { MatSortModule, Sort } from '@angular/material/sort';
 import { MatTableModule } from '@angular/material/table';
+import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import { DEFAULT_PAGE_SIZE, type Page, type PageQuery } from '@shared/api/paging';
-import { SCAN_SORT_KEYS, SCAN_STATUS_LABELS, SCAN_STATUSES, type ScanSortKey, type ScanStatus, type ScanSummary } from '@shared/api/scans';
+import { SCAN_SORT_KEYS, type ScanFilters, type ScanSortKey, type ScanSummary } from '@shared/api/scans';
 import { catchError, combineLatest, map, of, scan, startWith, switchMap } from 'rxjs';
 
 import { ScansApi } from '../../core/api/scans-api';
@@ -22,10 +22,12 @@ interface CatalogueView {
   failure: string | null;
 }
 
-/** Every scan in the archive, paged and sorted by the server. */
+const DERIVATIVE_ICONS: Readonly<Record<string, string>> = { queued: 'schedule', working: 'autorenew', ready: 'image', failed: 'broken_image' };
+
+/** Scans of the archive in a table, paged, sorted and filtered by the server. */
 @Component({
   selector: 'isl-catalogue',
-  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatSelectModule, MatFormFieldModule, ScanStatusChip],
+  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatIconModule, MatTooltipModule, ScanStatusChip],
   templateUrl: './catalogue.html',
   styleUrl: './catalogue.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -33,17 +35,18 @@ interface CatalogueView {
 export class Catalogue {
   private readonly scansApi = inject(ScansApi);
 
-  protected readonly columns = ['periodStart', 'stationName', 'chartFormName', 'originalName', 'status', 'inkLineCount', 'uploadedAt'];
-  protected readonly statuses = SCAN_STATUSES;
-  protected readonly statusLabels = SCAN_STATUS_LABELS;
-  protected readonly query = signal<PageQuery<ScanSortKey>>({ page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'uploadedAt', direction: 'desc' });
-  protected readonly status = signal<ScanStatus | null>(null);
+  readonly filters = input<ScanFilters>({});
+  /** Page and sort; two-way so the page can keep them in the address. */
+  readonly query = model<PageQuery<ScanSortKey>>({ page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'uploadedAt', direction: 'desc' });
+
+  protected readonly columns = ['periodStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
+  protected readonly derivativeIcons = DERIVATIVE_ICONS;
   private readonly reloads = signal(0);
 
   private readonly view = toSignal(
-    combineLatest([toObservable(this.query), toObservable(this.status), toObservable(this.reloads)]).pipe(
-      switchMap(([query, status]) =>
-        this.scansApi.list(query, status ? { status } : {}).pipe(
+    combineLatest([toObservable(this.query), toObservable(this.filters), toObservable(this.reloads)]).pipe(
+      switchMap(([query, filters]) =>
+        this.scansApi.list(query, filters).pipe(
           map((page): CatalogueView => ({ page, isLoading: false, failure: null })),
           catchError((error: unknown) => of<CatalogueView>({ page: null, isLoading: false, failure: describe(error) })),
           startWith<CatalogueView>({ page: null, isLoading: true, failure: null }),
@@ -56,7 +59,7 @@ export class Catalogue {
   );
   protected readonly page = computed(() => this.view().page);
   protected readonly rows = computed(() => this.page()?.items ?? []);
-  protected readonly total = computed(() => this.page()?.total ?? 0);
+  readonly total = computed(() => this.page()?.total ?? 0);
   protected readonly isLoading = computed(() => this.view().isLoading);
   protected readonly failure = computed(() => this.view().failure);
 
@@ -76,11 +79,6 @@ export class Catalogue {
       sort: sort.direction === '' ? undefined : key,
       direction: sort.direction === '' ? 'asc' : sort.direction,
     }));
-  }
-
-  protected filterByStatus(status: ScanStatus | null): void {
-    this.status.set(status);
-    this.query.update((query) => ({ ...query, page: 0 }));
   }
 }
 

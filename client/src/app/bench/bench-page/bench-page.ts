@@ -21,6 +21,9 @@ import { PinStep } from '../pin-step/pin-step';
 import { ScanStage } from '../scan-stage/scan-stage';
 import type { Size } from '../scan-stage/view-transform';
 
+/** Longest side of the image the Bench shows, px: sharp enough to click on, light enough to pan. */
+const BENCH_IMAGE_SIDE_PX = 2400;
+
 interface HandInProblem {
   message: string;
   details: Record<string, string>;
@@ -58,7 +61,16 @@ export class BenchPage {
   protected readonly scan = computed(() => this.scanResult()?.scan ?? null);
   protected readonly scanFailure = computed(() => this.scanResult()?.failure ?? null);
   protected readonly previewUrl = toSignal(
-    toObservable(this.scanId).pipe(switchMap((scanId) => this.scansApi.preview(scanId).pipe(map((blob) => this.previewUrls.replace(blob)), catchError(() => of(null))))),
+    toObservable(this.scanId).pipe(
+      switchMap((scanId) =>
+        // The Bench reads its image through IIIF like every viewer; the plain preview stands in while the worker has not made the tiles yet.
+        this.scansApi.iiifImage(scanId, BENCH_IMAGE_SIDE_PX).pipe(
+          catchError(() => this.scansApi.preview(scanId)),
+          map((blob) => this.previewUrls.replace(blob)),
+          catchError(() => of(null)),
+        ),
+      ),
+    ),
   );
   private readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
   protected readonly chartForm = computed(() => this.chartForms().find((form) => form.id === this.scan()?.chartFormId) ?? null);

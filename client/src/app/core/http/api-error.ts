@@ -8,6 +8,8 @@ export class ApiError extends Error {
     readonly code: ApiErrorCode,
     message: string,
     readonly details: Record<string, string> = {},
+    /** The answer's body as parsed, for routes whose 4xx answers carry more than the error body. */
+    readonly body: unknown = null,
   ) {
     super(message);
     this.name = 'ApiError';
@@ -28,12 +30,12 @@ export function isApiErrorBody(x: unknown): x is ApiErrorBody {
 /** Maps an HttpErrorResponse whose body is already parsed (or absent) to an ApiError. */
 export function toApiError(response: HttpErrorResponse, body: unknown = response.error): ApiError {
   if (isApiErrorBody(body)) {
-    return new ApiError(response.status, body.error.code, body.error.message, toDetails(body.error.details));
+    return new ApiError(response.status, body.error.code, body.error.message, toDetails(body.error.details), body);
   }
   if (response.status === 0) {
     return new ApiError(0, 'internal_error', 'The server could not be reached. Check the connection and try again.');
   }
-  return new ApiError(response.status, codeForStatus(response.status), `The server answered ${response.status} ${response.statusText}`.trim());
+  return new ApiError(response.status, codeForStatus(response.status), `The server answered ${response.status} ${response.statusText}`.trim(), {}, body);
 }
 
 /** Error bodies of blob requests (previews, CSV) arrive as a Blob; read them so they map like any other. */

@@ -36,7 +36,15 @@ describe('authTokenInterceptor', () => {
     expect(controller.expectOne('/api/health').request.headers.has('Authorization')).toBe(false);
   });
 
-  it('when a call goes outside /api, then the token is not sent', () => {
+  it('when an image is asked for through IIIF, then it carries the bearer token too', () => {
+    signInForTest(TestBed.inject(AuthSession), ['volunteer']);
+
+    http.get('/iiif/3/scan-1/full/!2400,2400/0/default.jpg').subscribe();
+
+    expect(controller.expectOne('/iiif/3/scan-1/full/!2400,2400/0/default.jpg').request.headers.get('Authorization')).toBe('Bearer token-test');
+  });
+
+  it('when a call goes outside /api and /iiif, then the token is not sent', () => {
     signInForTest(TestBed.inject(AuthSession), ['archivist']);
 
     http.get('/assets/readme.txt').subscribe();

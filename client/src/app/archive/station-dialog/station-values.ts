@@ -1,0 +1,96 @@
+import type { AbstractControl, ValidationErrors } from '@angular/forms';
+import type { StationInput, StationSummary, TimeStandard } from '@shared/api/stations';
+
+/** The station form's text values. */
+export interface StationValues {
+  code: string;
+  name: string;
+  wigosId: string;
+  latitude: string;
+  longitude: string;
+  elevationM: string;
+  barometerHeightM: string;
+  timeZone: string;
+  timeStandard: TimeStandard;
+  historyNotes: string;
+}
+
+export const EMPTY_STATION: StationValues = {
+  code: '',
+  name: '',
+  wigosId: '',
+  latitude: '',
+  longitude: '',
+  elevationM: '',
+  barometerHeightM: '',
+  timeZone: '',
+  timeStandard: 'local_standard',
+  historyNotes: '',
+};
+
+function numberText(n: number | null): string {
+  return n === null ? '' : String(n);
+}
+
+export function valuesOfStation(station: StationSummary): StationValues {
+  return {
+    code: station.code,
+    name: station.name,
+    wigosId: station.wigosId ?? '',
+    latitude: numberText(station.latitude),
+    longitude: numberText(station.longitude),
+    elevationM: numberText(station.elevationM),
+    barometerHeightM: numberText(station.barometerHeightM),
+    timeZone: station.timeZone,
+    timeStandard: station.timeStandard,
+    historyNotes: station.historyNotes,
+  };
+}
+
+function numberOrNull(text: string): number | null {
+  return text.trim() === '' ? null : Number(text);
+}
+
+export function stationInputOf(values: StationValues): StationInput {
+  return {
+    code: values.code.trim(),
+    name: values.name.trim(),
+    wigosId: values.wigosId.trim() === '' ? null : values.wigosId.trim(),
+    latitude: numberOrNull(values.latitude),
+    longitude: numberOrNull(values.longitude),
+    elevationM: numberOrNull(values.elevationM),
+    barometerHeightM: numberOrNull(values.barometerHeightM),
+    timeZone: values.timeZone.trim(),
+    timeStandard: values.timeStandard,
+    historyNotes: values.historyNotes,
+  };
+}
+
+/** A number within [min, max], or empty. */
+export function numberInRange(min: number, max: number) {
+  return (control: AbstractControl<string>): ValidationErrors | null => {
+    if (control.value.trim() === '') return null;
+    const n = Number(control.value);
+    return Number.isFinite(n) && n >= min && n <= max ? null : { range: { min, max } };
+  };
+}
+
+/** An IANA zone the browser knows (Intl throws a RangeError on unknown names). */
+export function ianaZoneValidator(control: AbstractControl<string>): ValidationErrors | null {
+  const zone = control.value.trim();
+  if (zone === '') return null;
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: zone });
+    return null;
+  } catch {
+    // RangeError: not a zone name.
+    return { ianaZone: true };
+  }
+}
+
+/** A WIGOS station identifier: series-issuer-issue number-local identifier, e.g. 0-20000-0-01492 (WMO-No. 1160). */
+export function wigosIdValidator(control: AbstractControl<string>): ValidationErrors | null {
+  const id = control.value.trim();
+  if (id === '') return null;
+  return /^\d+-\d+-\d+-[A-Za-z0-9]{1,16}$/.test(id) ? null : { wigosId: true };
+}

@@ -1,0 +1,6 @@
+import { Routes } from '@angular/router';
+
+export const intakeRoutes: Routes = [
+  { path: '', title: 'Intake · Isallo', loadComponent: () => import('./intake-page/intake-page').then((m) => m.IntakePage) },
+  { path: 'batches/:batchId', title: 'Intake batch · Isallo', loadComponent: () => import('./batch-page/batch-page').then((m) => m.BatchPage) },
+];
