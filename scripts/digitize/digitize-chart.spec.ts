@@ -67,6 +67,19 @@ describe('digitizeChart', () => {
     expect(score.inkedRecovered).toBeGreaterThanOrEqual(0.99);
   });
 
+  it('when the deepest low runs off the printed range and the pen climbs back along its arc, then that stretch is flagged off-scale and the rest still fits', async () => {
+    const generated = await generateChart({ seed: 13, dpi: 150, faults: { offScale: true, noiseSigma: 2 } });
+    const image = await decodeImage(generated.image);
+    const chart = chartFileOf(generated.chartJson);
+
+    const result = digitizeChart(image, chart);
+
+    const score = scoreSeries(result.series, parseTruthCsv(generated.truthCsv));
+    expect(result.series.filter((p) => p.flag === 'off_scale').length).toBeGreaterThanOrEqual(3);
+    expect(score.rmseHpa).toBeLessThanOrEqual(0.35);
+    expect(score.inkedRecovered).toBeGreaterThanOrEqual(0.99);
+  });
+
   it('when the command line is given the first page of a PDF, then it writes the series CSV from the embedded scan', async () => {
     const directory = mkdtempSync(join(tmpdir(), 'isallo-digitize-'));
     const jpeg = await sharp(join(SAMPLES, 'demo-weekly.png')).jpeg({ quality: 90 }).toBuffer();

@@ -2,7 +2,7 @@ import { pixelToReading } from '../registration';
 import { followInk } from './follow-ink';
 import type { InkTrace } from './ink-trace';
 import type { RawImage } from './raw-image';
-import { INK, MARGIN_PX, PAPER, SYNTHETIC_FORM, blankScan, drawStroke, drawVertical, pixelOf, syntheticFit } from './synthetic-scan';
+import { INK, MARGIN_PX, PAPER, SYNTHETIC_FORM, blankScan, drawStroke, drawVertical, paint, pixelOf, syntheticFit } from './synthetic-scan';
 
 // The specs draw their own scans (synthetic-scan.ts): 4 px per mm, 40 px per hour, 8 px per hPa.
 const PX_PER_HOUR = 40;
@@ -138,6 +138,26 @@ describe('followInk', () => {
     expect(firstHigh?.hours).toBeCloseTo(jumpHours, 1);
     const truth = (hours: number) => (hours < jumpHours ? before(hours) : after(hours));
     expect(rmsError(trace, truth, (h) => Math.abs(h - jumpHours) < 0.1)).toBeLessThan(0.05);
+  });
+
+  it('when a brown stain and a grey fingerprint lie over the line, then the trace is not pulled off it', () => {
+    const image = blankScan(3);
+    drawPressure(image, wave, 1, 23);
+    const stainAt = pixelOf(6, 1000);
+    const printAt = pixelOf(16, 1000);
+    for (let y = 0; y < image.height; y++) {
+      for (let x = 0; x < image.width; x++) {
+        const stain = Math.hypot(x - stainAt.xPx, (y - stainAt.yPx) * 1.5);
+        if (stain < 60) paint(image, x, y, [155, 107, 48], 0.3);
+        const ring = Math.hypot(x - printAt.xPx, y - printAt.yPx);
+        if (ring < 40 && Math.floor(ring / 3) % 2 === 0) paint(image, x, y, [85, 80, 74], 0.25);
+      }
+    }
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23 });
+
+    expect(rmsError(trace, wave)).toBeLessThan(0.05);
+    expect(trace.spans).toEqual([]);
   });
 
   it('when two equally dark lines are on the chart, then the seed pixel chooses which one is followed', () => {
