@@ -102,7 +102,7 @@ describe('followInk', () => {
 
     const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23 });
 
-    const offScale = trace.spans.filter((s) => s.kind === 'off-scale');
+    const offScale = trace.spans.filter((s) => s.kind === 'off_scale');
     expect(offScale).toHaveLength(1);
     expect(hoursOfX(offScale[0].startXPx)).toBeLessThan(11);
     expect(hoursOfX(offScale[0].endXPx)).toBeGreaterThan(13);

@@ -140,7 +140,7 @@ function offScaleSpans(form: ChartForm, fit: RegistrationFit, trace: PointList, 
     }
     if (isOff && start < 0) start = i;
     if (!isOff && start >= 0) {
-      spans.push({ kind: 'off-scale', startXPx: trace.x[start], endXPx: trace.x[i - 1], startIndex: start, endIndex: i - 1 });
+      spans.push({ kind: 'off_scale', startXPx: trace.x[start], endXPx: trace.x[i - 1], startIndex: start, endIndex: i - 1 });
       start = -1;
     }
   }

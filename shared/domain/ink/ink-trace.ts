@@ -1,6 +1,6 @@
 /** A span of the pen line that needs a flag: no ink (gap), or the pen riding the edge of the printed range. */
 export interface InkSpan {
-  kind: 'gap' | 'off-scale';
+  kind: 'gap' | 'off_scale';
   /** Pixel columns the span covers (continuous coordinates). */
   startXPx: number;
   endXPx: number;
