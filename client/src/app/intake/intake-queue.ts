@@ -37,7 +37,7 @@ export function finishedOfFailure(error: unknown): Finished {
   if (!(error instanceof ApiError)) return { state: 'rejected', message: 'The upload failed.', scanIds: [], existingScanId: null };
   const result = isIntakeFileResult(error.body) ? error.body : null;
   if (error.status === 409 || error.code === 'duplicate_scan' || result?.outcome === 'duplicate') {
-    const existingScanId = result?.existingScanId ?? error.details['scanId'] ?? null;
+    const existingScanId = result?.existingScanId ?? error.details['existingScanId'] ?? error.details['scanId'] ?? null;
     return { state: 'duplicate', message: result?.reason ?? error.message, scanIds: result?.scans.map((s) => s.id) ?? [], existingScanId };
   }
   return { state: 'rejected', message: result?.reason ?? error.message, scanIds: [], existingScanId: null };

@@ -9,26 +9,11 @@ import { provideRouter } from '@angular/router';
 import type { Page } from '@shared/api/paging';
 import type { ScanSummary } from '@shared/api/scans';
 
+import { scanSummaryForTest } from '../../core/api/scan-for-test';
 import { Catalogue } from './catalogue';
 
 function scan(index: number): ScanSummary {
-  return {
-    id: `scan-${index}`,
-    stationId: 'st-kro',
-    stationName: 'Kestrel Ridge Observatory',
-    chartFormId: 'cf-1',
-    chartFormName: 'Weekly 950–1050 hPa',
-    periodStart: '2026-03-02T00:00:00.000Z',
-    status: 'ready_to_trace',
-    originalName: `kro-week-${index}.png`,
-    mediaType: 'image/png',
-    sizeBytes: 1000,
-    widthPx: 4800,
-    heightPx: 1600,
-    sha256: 'ab'.repeat(32),
-    uploadedAt: '2026-03-10T09:00:00.000Z',
-    inkLineCount: 0,
-  };
+  return scanSummaryForTest({ id: `scan-${index}`, originalName: `kro-week-${index}.png` });
 }
 
 function pageOf(count: number, total: number, page: number): Page<ScanSummary> {
@@ -96,5 +81,19 @@ describe('Catalogue', () => {
     expect(request.request.params.get('direction')).toBe('asc');
     expect(request.request.params.get('page')).toBe('0');
     request.flush(pageOf(25, 60, 0));
+  });
+
+  it('when filters are given, then they go to the server with the page, tags repeated', async () => {
+    const fixture = TestBed.createComponent(Catalogue);
+    fixture.componentRef.setInput('filters', { stationId: 'st-kro', tag: ['gale', 'torn'], q: 'box 14' });
+    await fixture.whenStable();
+
+    const request = expectList();
+
+    expect(request.request.params.get('stationId')).toBe('st-kro');
+    expect(request.request.params.getAll('tag')).toEqual(['gale', 'torn']);
+    expect(request.request.params.get('q')).toBe('box 14');
+    expect(request.request.params.get('page')).toBe('0');
+    request.flush(pageOf(0, 0, 0));
   });
 });

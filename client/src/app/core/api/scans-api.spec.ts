@@ -65,4 +65,44 @@ describe('ScansApi', () => {
     expect(request.request.responseType).toBe('blob');
     request.flush(new Blob());
   });
+
+  it('when status counts are asked for with tags, then each tag is its own parameter and no paging is sent', () => {
+    api.statusCounts({ tag: ['gale', 'torn'], q: 'box 14' }).subscribe();
+
+    const request = controller.expectOne((r) => r.url === '/api/scans/status-counts');
+
+    expect(request.request.params.getAll('tag')).toEqual(['gale', 'torn']);
+    expect(request.request.params.get('q')).toBe('box 14');
+    expect(request.request.params.has('page')).toBe(false);
+    request.flush({ received: 0, ready_to_trace: 0, traced: 0, approved: 0, withdrawn: 0 });
+  });
+
+  it('when catalogue fields are saved, then they go as a PATCH with the version read', () => {
+    api.update('scan-1', { version: 4, observer: 'R. Pellow', tags: ['gale'] }).subscribe();
+
+    const request = controller.expectOne('/api/scans/scan-1');
+
+    expect(request.request.method).toBe('PATCH');
+    expect(request.request.body).toEqual({ version: 4, observer: 'R. Pellow', tags: ['gale'] });
+    request.flush({});
+  });
+
+  it('when a scan is withdrawn, then the status and the reason are posted to its status path', () => {
+    api.changeStatus('scan-1', { status: 'withdrawn', reason: 'second copy of item 12' }).subscribe();
+
+    const request = controller.expectOne('/api/scans/scan-1/status');
+
+    expect(request.request.method).toBe('POST');
+    expect(request.request.body).toEqual({ status: 'withdrawn', reason: 'second copy of item 12' });
+    request.flush({});
+  });
+
+  it('when the Bench asks for its image, then a IIIF request fitted inside the given size is made as a blob', () => {
+    api.iiifImage('scan-1', 2400).subscribe();
+
+    const request = controller.expectOne('/iiif/3/scan-1/full/!2400,2400/0/default.jpg');
+
+    expect(request.request.responseType).toBe('blob');
+    request.flush(new Blob());
+  });
 });
