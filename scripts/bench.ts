@@ -145,7 +145,7 @@ async function main(): Promise<void> {
   process.stdout.write(`${out.join('\n')}\n`);
   process.stdout.write(
     `machine: ${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${(totalmem() / 2 ** 30).toFixed(0)} GB, Node ${process.version}; ` +
-      `decode and pipeline are medians of ${REPEATS} runs after two untimed ones; cold = the first run in a fresh process (V8 still compiling); ratio = pipeline (read + decode + registration + ink + corrections + resample + CSV) ÷ sharp decode-to-raw of the same file\n`,
+      `decode and pipeline are medians of ${REPEATS} runs after six untimed ones (V8 warm); cold = the first run in a fresh process (V8 still compiling); ratio = pipeline (read + decode + registration + ink + corrections + resample + CSV) ÷ sharp decode-to-raw of the same file\n`,
   );
   if (failures.length > 0) {
     process.stdout.write(`bars missed:\n  ${failures.join('\n  ')}\n`);

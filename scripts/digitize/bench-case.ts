@@ -11,6 +11,8 @@ import { digitizeChart, type DigitizeResult } from './digitize-chart';
 import { loadScan } from './load-scan';
 import { formatSeriesCsv } from './series-csv';
 
+const WARM_UP_RUNS = 5;
+
 function median(values: number[]): number {
   const sorted = [...values].sort((a, b) => a - b);
   return sorted[sorted.length >> 1];
@@ -32,8 +34,8 @@ async function main(): Promise<void> {
   };
   const first = await runPipeline();
   const peakRssMb = process.resourceUsage().maxRSS / 1024;
-  // One more run before timing: the first runs mostly measure V8 compiling the hot loops, which a server does once.
-  await runPipeline();
+  // Untimed runs first: the first few mostly measure V8 compiling the hot loops, which a server does once.
+  for (let i = 0; i < WARM_UP_RUNS; i++) await runPipeline();
   const pipelineMs: number[] = [];
   const decodeMs: number[] = [];
   for (let i = 0; i < repeats; i++) {
