@@ -1,6 +1,7 @@
 import type { Logger } from 'pino';
 import type { Config } from './config';
 import type { Db } from './db/database';
+import type { DerivativeJobs } from './jobs/job-boss';
 import type { Storage } from './storage/storage';
 
 /** What the app is built from; tests pass their own. */
@@ -9,4 +10,6 @@ export interface AppDeps {
   storage: Storage;
   config: Config;
   logger: Logger;
+  /** Where uploads send their derivative jobs (pg-boss in the server; the same in API tests). */
+  jobs: DerivativeJobs;
 }

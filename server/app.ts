@@ -9,7 +9,10 @@ import { apiNotFound } from './errors/not-found';
 import { healthRoutes } from './health/health.routes';
 import { clientStatic } from './http/client-static';
 import { securityHeaders } from './http/security';
+import { iiifRoutes } from './iiif/iiif.routes';
 import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
+import { instrumentsRoutes } from './instruments/instruments.routes';
+import { intakeRoutes } from './intake/intake.routes';
 import { peopleRoutes } from './people/people.routes';
 import { scansRoutes } from './scans/scans.routes';
 import { seriesRoutes } from './series/series.routes';
@@ -35,11 +38,15 @@ export function createApp(deps: AppDeps): Express {
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
   app.use('/api/auth', authRoutes(deps, authenticate));
   app.use('/api/stations', authenticate, stationsRoutes(deps));
+  app.use('/api/instruments', authenticate, instrumentsRoutes(deps));
   app.use('/api/chart-forms', authenticate, chartFormsRoutes(deps));
+  app.use('/api/intake', authenticate, intakeRoutes(deps));
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));
   app.use('/api', apiNotFound);
+  app.use('/iiif', iiifRoutes(deps, authenticate));
+  app.use('/iiif', apiNotFound);
 
   app.use(clientStatic(deps.config.clientDir, deps.logger));
   app.use(errorHandler(deps.logger, deps.config.maxUploadBytes));

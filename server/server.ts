@@ -4,6 +4,8 @@ import { type Config, ConfigError, loadConfig } from './config';
 import { createDb } from './db/create-db';
 import { migrateToLatest } from './db/migrate';
 import { seedDemo } from './demo/seed-demo';
+import { pgBossDerivativeJobs, startJobBoss } from './jobs/job-boss';
+import { startWorker, type RunningWorker } from './jobs/worker';
 import { createLogger } from './logger';
 import { createFileStorage } from './storage/storage';
 
@@ -17,6 +19,8 @@ export interface RunningServer {
 export interface StartOptions {
   /** Seed the demo scenario from this fixtures folder (e.g. `fixtures`) before listening. */
   demoFixturesDir?: string;
+  /** Also run the derivatives worker in this process (browser tests); `npm start` runs it as a child process instead. */
+  withWorker?: boolean;
 }
 
 /** Migrates the database, builds the app and listens; used by this file's main and by in-process tests. */
@@ -24,15 +28,31 @@ export async function startServer(config: Config, options: StartOptions = {}): P
   const logger = createLogger(config.logLevel);
   const db = createDb(config.databaseUrl);
   const storage = createFileStorage(config.storageDir);
+  let boss: Awaited<ReturnType<typeof startJobBoss>> | undefined;
+  let workerBoss: Awaited<ReturnType<typeof startJobBoss>> | undefined;
+  let worker: RunningWorker | undefined;
+  const stopJobs = async () => {
+    await worker?.stop();
+    await workerBoss?.stop({ graceful: true, wait: true, timeout: 30_000 });
+    await boss?.stop({ graceful: true, wait: true, timeout: 10_000 });
+  };
   try {
     await migrateToLatest(db);
     await storage.ensureFolders();
-    if (options.demoFixturesDir) await seedDemo(db, storage, { fixturesDir: options.demoFixturesDir, logger });
+    boss = await startJobBoss(config.databaseUrl, { isWorker: false });
+    const jobs = pgBossDerivativeJobs(boss);
+    if (options.demoFixturesDir) await seedDemo({ db, storage, jobs }, { fixturesDir: options.demoFixturesDir, logger });
+    if (options.withWorker) {
+      workerBoss = await startJobBoss(config.databaseUrl, { isWorker: true });
+      worker = await startWorker({ db, storage, boss: workerBoss, logger: logger.child({ process: 'worker' }), pollingIntervalSeconds: 0.5 });
+    }
   } catch (error) {
+    await stopJobs().catch(() => undefined);
     await db.destroy();
     throw error;
   }
-  const app = createApp({ db, storage, config, logger });
+  const jobs = pgBossDerivativeJobs(boss);
+  const app = createApp({ db, storage, config, logger, jobs });
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
@@ -52,6 +72,7 @@ export async function startServer(config: Config, options: StartOptions = {}): P
           // Idle keep-alive sockets would hold close() open until they time out.
           server.closeIdleConnections();
         });
+        await stopJobs();
         await db.destroy();
         logger.info('Isallo has stopped');
       })();

@@ -17,5 +17,6 @@ export interface ChartFormTable {
   label_pressure_step: number;
   grid_hours_step: number;
   label_hours_step: number;
+  version: Generated<number>;
   created_at: ColumnType<Date, Date | undefined, never>;
 }

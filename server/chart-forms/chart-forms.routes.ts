@@ -1,15 +1,34 @@
 import { Router, type Response } from 'express';
 import { CHART_FORM_SORT_KEYS, type ChartFormSummary } from '@shared/api/chart-forms';
 import type { Page } from '@shared/api/paging';
+import { parseChartFormInput, parseChartFormPatch } from '@shared/api/parse-chart-form';
 import type { AppDeps } from '../app-deps';
+import { requireRoles } from '../auth/require-roles';
+import { HTTP } from '../errors/app-error';
+import { parsePathId, valueOrThrow } from '../http/parse-body';
 import { readPageQuery } from '../http/parse-query';
 import * as chartFormsService from './chart-forms.service';
 
-/** Mounted at /api/chart-forms behind authenticate: any signed-in person may list chart forms. */
+const chartFormId = (value: unknown) => parsePathId(value, 'chart_form_not_found', 'chart form');
+
+/** Mounted at /api/chart-forms behind authenticate: any signed-in person may read; archivists keep the library. */
 export function chartFormsRoutes({ db }: AppDeps): Router {
   const router = Router();
+  const mayEdit = requireRoles('archivist');
   router.get('/', async (req, res: Response<Page<ChartFormSummary>>) => {
     res.json(await chartFormsService.listChartForms(db, readPageQuery(req.query, CHART_FORM_SORT_KEYS)));
+  });
+  router.post('/', mayEdit, async (req, res: Response<ChartFormSummary>) => {
+    const form = valueOrThrow(parseChartFormInput(req.body), 'The chart form has invalid fields.');
+    res.status(HTTP.created).json(await chartFormsService.createChartForm(db, form));
+  });
+  router.get('/:chartFormId', async (req, res: Response<ChartFormSummary>) => {
+    res.json(await chartFormsService.getChartForm(db, chartFormId(req.params.chartFormId)));
+  });
+  router.patch('/:chartFormId', mayEdit, async (req, res: Response<ChartFormSummary>) => {
+    const id = chartFormId(req.params.chartFormId);
+    const patch = valueOrThrow(parseChartFormPatch(req.body), 'The chart form has invalid fields.');
+    res.json(await chartFormsService.updateChartForm(db, id, patch));
   });
   return router;
 }

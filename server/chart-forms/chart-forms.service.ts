@@ -1,7 +1,10 @@
-import type { ChartFormSortKey, ChartFormSummary } from '@shared/api/chart-forms';
+import type { ChartFormPatch, ChartFormSortKey, ChartFormSummary } from '@shared/api/chart-forms';
 import type { Page, PageQuery } from '@shared/api/paging';
+import { checkChartForm, type ChartForm } from '@shared/domain/chart-form';
 import type { DbOrTrx } from '../db/database';
-import { AppError, HTTP } from '../errors/app-error';
+import { PG_UNIQUE_VIOLATION, pgErrorCode } from '../db/pg-errors';
+import { AppError, HTTP, validationFailed } from '../errors/app-error';
+import { versionConflict } from '../http/version-conflict';
 import * as chartFormsRepository from './chart-forms.repository';
 
 export async function listChartForms(db: DbOrTrx, query: PageQuery<ChartFormSortKey>): Promise<Page<ChartFormSummary>> {
@@ -14,4 +17,39 @@ export async function getChartForm(db: DbOrTrx, chartFormId: string): Promise<Ch
   const form = await chartFormsRepository.findChartFormById(db, chartFormId);
   if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'There is no chart form with this id.');
   return form;
+}
+
+function duplicateName(error: unknown): never {
+  if (pgErrorCode(error) === PG_UNIQUE_VIOLATION) {
+    throw new AppError(HTTP.conflict, 'conflict', 'Another chart form already has this name.', { name: 'already used by another chart form' });
+  }
+  throw error;
+}
+
+export async function createChartForm(db: DbOrTrx, form: ChartForm): Promise<ChartFormSummary> {
+  return chartFormsRepository.insertChartForm(db, form).catch(duplicateName);
+}
+
+function inUse(scanCount: number): AppError {
+  return new AppError(
+    HTTP.conflict,
+    'conflict',
+    `This chart form is used by ${scanCount} scan${scanCount === 1 ? '' : 's'}, whose tracing depends on its geometry; create a new chart form instead.`,
+    { scanCount },
+  );
+}
+
+/** Edits a chart form that no scan uses yet; the merged form must pass checkChartForm. */
+export async function updateChartForm(db: DbOrTrx, chartFormId: string, patch: ChartFormPatch): Promise<ChartFormSummary> {
+  const { version, ...fields } = patch;
+  const current = await getChartForm(db, chartFormId);
+  if (current.scanCount > 0) throw inUse(current.scanCount);
+  const { id: _id, version: _version, scanCount: _scanCount, ...currentForm } = current;
+  const problems = checkChartForm({ ...currentForm, ...fields });
+  if (Object.keys(problems).length > 0) throw validationFailed(problems, 'The chart form has invalid fields.');
+  const isUpdated = await chartFormsRepository.updateUnusedChartForm(db, chartFormId, version, fields).catch(duplicateName);
+  if (isUpdated) return getChartForm(db, chartFormId);
+  const now = await getChartForm(db, chartFormId);
+  if (now.scanCount > 0) throw inUse(now.scanCount);
+  throw versionConflict('chart form', now.version);
 }

@@ -1,8 +1,11 @@
 import type { Kysely, Transaction } from 'kysely';
+import type { ScanAuditTable } from '../audit/scan-audit.table';
 import type { ChartFormTable } from '../chart-forms/chart-form.table';
 import type { DemoSeedTable } from '../demo/demo-seed.table';
 import type { InkLineTable } from '../ink-lines/ink-line.table';
 import type { PinSetTable } from '../ink-lines/pin-set.table';
+import type { InstrumentTable } from '../instruments/instrument.table';
+import type { IntakeBatchTable, IntakeFileTable } from '../intake/intake.table';
 import type { PersonRoleTable, PersonTable } from '../people/person.table';
 import type { ScanTable } from '../scans/scan.table';
 import type { SeriesPointTable } from '../series/series-point.table';
@@ -19,6 +22,10 @@ export interface Database {
   ink_line: InkLineTable;
   series_point: SeriesPointTable;
   demo_seed: DemoSeedTable;
+  instrument: InstrumentTable;
+  intake_batch: IntakeBatchTable;
+  intake_file: IntakeFileTable;
+  scan_audit: ScanAuditTable;
 }
 
 export type Db = Kysely<Database>;

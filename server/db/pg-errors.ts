@@ -1,6 +1,7 @@
 /** Postgres SQLSTATE codes the repositories translate into API errors. */
 export const PG_UNIQUE_VIOLATION = '23505';
 export const PG_FOREIGN_KEY_VIOLATION = '23503';
+export const PG_CHECK_VIOLATION = '23514';
 
 /** The SQLSTATE of a pg error, or undefined for anything else. */
 export function pgErrorCode(error: unknown): string | undefined {

@@ -1,5 +1,5 @@
 import type { Role } from '@shared/api/roles';
-import type { StationSummary } from '@shared/api/stations';
+import type { StationInput } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
 
 /** Password of every demo account (invented scenario; never use outside a demo). */
@@ -14,9 +14,31 @@ export const DEMO_PEOPLE: { email: string; displayName: string; roles: Role[] }[
 ];
 
 /** Invented places. */
-export const DEMO_STATIONS: Omit<StationSummary, 'id'>[] = [
-  { code: 'KRO', name: 'Kestrel Ridge Observatory', latitude: 54.612, longitude: -2.871, elevationM: 412, timeZone: 'Europe/London' },
-  { code: 'SBS', name: 'Saltmere Bay School', latitude: 50.734, longitude: -3.405, elevationM: 18, timeZone: 'Europe/London' },
+export const DEMO_STATIONS: StationInput[] = [
+  {
+    code: 'KRO',
+    name: 'Kestrel Ridge Observatory',
+    latitude: 54.612,
+    longitude: -2.871,
+    elevationM: 412,
+    timeZone: 'Europe/London',
+    wigosId: null,
+    barometerHeightM: 413.2,
+    timeStandard: 'utc',
+    historyNotes: 'Hill-top observatory; barograph moved to the north room in 1952 (invented).',
+  },
+  {
+    code: 'SBS',
+    name: 'Saltmere Bay School',
+    latitude: 50.734,
+    longitude: -3.405,
+    elevationM: 18,
+    timeZone: 'Europe/London',
+    wigosId: null,
+    barometerHeightM: 19.5,
+    timeStandard: 'local_standard',
+    historyNotes: 'School weather club; charts changed on Monday mornings (invented).',
+  },
 ];
 
 /** Used when the generated sample's own chart form is not there; the same geometry the generator draws. */

@@ -3,6 +3,7 @@ import { loadConfig } from '../config';
 import { createDb } from '../db/create-db';
 import { migrateToLatest } from '../db/migrate';
 import { createFileStorage } from '../storage/storage';
+import { pgBossDerivativeJobs, startJobBoss } from '../jobs/job-boss';
 import { seedDemo } from './seed-demo';
 
 // `npx tsx server/demo/seed-demo-cli.ts [fixturesDir]`: migrates, then seeds the demo scenario once.
@@ -12,8 +13,14 @@ async function main(): Promise<void> {
   const db = createDb(config.databaseUrl, 2);
   try {
     await migrateToLatest(db);
-    const result = await seedDemo(db, createFileStorage(config.storageDir), { fixturesDir });
-    console.log(result.isSeeded ? `Demo seeded: ${JSON.stringify(result)}` : 'The demo scenario was seeded before; nothing to do.');
+    // Derivative jobs are only queued here; the worker (npm start) makes them.
+    const boss = await startJobBoss(config.databaseUrl, { isWorker: false });
+    try {
+      const result = await seedDemo({ db, storage: createFileStorage(config.storageDir), jobs: pgBossDerivativeJobs(boss) }, { fixturesDir });
+      console.log(result.isSeeded ? `Demo seeded: ${JSON.stringify(result)}` : 'The demo scenario was seeded before; nothing to do.');
+    } finally {
+      await boss.stop({ graceful: false, wait: true });
+    }
   } finally {
     await db.destroy();
   }

@@ -3,7 +3,7 @@ import type { Logger } from 'pino';
 import sharp from 'sharp';
 import type { ChartFormSummary } from '@shared/api/chart-forms';
 import type { ScanDetail } from '@shared/api/scans';
-import type { StationSummary } from '@shared/api/stations';
+import type { StationInput, StationSummary } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
 import { fitRegistration, readingToPixel } from '@shared/domain/registration';
 import { hashPassword } from '../auth/passwords';
@@ -15,6 +15,7 @@ import * as inkLinesService from '../ink-lines/ink-lines.service';
 import * as peopleRepository from '../people/people.repository';
 import * as scansService from '../scans/scans.service';
 import * as stationsRepository from '../stations/stations.repository';
+import type { ScanDeps } from '../scans/scan-deps';
 import type { Storage } from '../storage/storage';
 import { readDemoSample, type DemoSample } from './demo-sample';
 import { DEMO_DAILY_FORM, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_STATIONS, DEMO_WEEKLY_FORM_FALLBACK } from './demo-scenario';
@@ -34,7 +35,7 @@ export interface SeedDemoResult {
   tracedScanId: string | null;
 }
 
-async function ensureStation(db: Db, station: Omit<StationSummary, 'id'>): Promise<StationSummary> {
+async function ensureStation(db: Db, station: StationInput): Promise<StationSummary> {
   return (await stationsRepository.findStationByCode(db, station.code)) ?? stationsRepository.insertStation(db, station);
 }
 
@@ -64,14 +65,14 @@ async function stageFile(storage: Storage, sourcePath: string): Promise<string> 
  * so a failed seed can simply be run again.
  */
 async function uploadOrReuse(
-  db: Db,
-  storage: Storage,
+  deps: ScanDeps,
   file: scansService.ReceivedFile,
   fields: scansService.ParsedUploadFields,
   uploadedBy: string,
 ): Promise<ScanDetail> {
+  const { db } = deps;
   try {
-    return await scansService.uploadScan(db, storage, file, fields, uploadedBy);
+    return await scansService.uploadScan(deps, file, fields, uploadedBy);
   } catch (error) {
     const isDuplicate = error instanceof AppError && error.code === 'duplicate_scan';
     const existingId = isDuplicate ? (error.details as { scanId?: string }).scanId : undefined;
@@ -97,7 +98,8 @@ function knotsFromTruth(sample: DemoSample, chartStartMs: number): { xPx: number
  * Ridge plus a re-encoded copy handed in from its true series, so the Series area has data at once.
  * Scans go through the same upload and hand-in services as the routes.
  */
-export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOptions): Promise<SeedDemoResult> {
+export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promise<SeedDemoResult> {
+  const { db, storage } = deps;
   const notSeeded: SeedDemoResult = { isSeeded: false, readyScanId: null, tracedScanId: null };
   if (await db.selectFrom('demo_seed').select('name').where('name', '=', SEED_NAME).executeTakeFirst()) return notSeeded;
   await storage.ensureFolders();
@@ -114,8 +116,7 @@ export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOption
     const volunteerId = personIds.get('volunteer@isallo.test') as string;
     const fields = { stationId: kestrelRidge.id, chartFormId: weeklyForm.id, periodStart: new Date(sample.chartStart) };
     const ready = await uploadOrReuse(
-      db,
-      storage,
+      deps,
       { tempPath: await stageFile(storage, sample.imagePath), originalName: 'demo-weekly.png' },
       fields,
       archivistId,
@@ -127,8 +128,7 @@ export async function seedDemo(db: Db, storage: Storage, options: SeedDemoOption
       const copyPath = storage.newTempPath('.upload');
       await sharp(sample.imagePath).png({ compressionLevel: 9, adaptiveFiltering: true }).toFile(copyPath);
       const traced = await uploadOrReuse(
-        db,
-        storage,
+        deps,
         { tempPath: copyPath, originalName: 'demo-weekly-traced.png' },
         fields,
         archivistId,

@@ -23,6 +23,11 @@ function fromMulter(err: unknown, maxUploadBytes: number): AppError | null {
   return new AppError(HTTP.badRequest, 'bad_request', `The upload was not understood: ${err.message}.`, { field: err.field });
 }
 
+/** The AppError an error stands for (ours, body-parser's or multer's), or null for a fault of the server. */
+export function knownError(err: unknown, maxUploadBytes: number): AppError | null {
+  return err instanceof AppError ? err : (fromBodyParser(err) ?? fromMulter(err, maxUploadBytes));
+}
+
 /** The one place that turns errors into `{ error: { code, message, details? } }`; never sends a stack. */
 export function errorHandler(logger: Logger, maxUploadBytes: number): ErrorRequestHandler {
   return (err, req, res, next) => {
@@ -30,7 +35,7 @@ export function errorHandler(logger: Logger, maxUploadBytes: number): ErrorReque
       next(err);
       return;
     }
-    const known = err instanceof AppError ? err : (fromBodyParser(err) ?? fromMulter(err, maxUploadBytes));
+    const known = knownError(err, maxUploadBytes);
     if (known) {
       const body: ApiErrorBody = { error: { code: known.code, message: known.message } };
       if (known.details !== undefined) body.error.details = known.details;

@@ -1,5 +1,6 @@
 import type { InkLineDraft, InkLineSaved } from '@shared/api/ink-lines';
 import { RegistrationError } from '@shared/domain/registration';
+import * as auditRepository from '../audit/scan-audit.repository';
 import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
 import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
@@ -20,6 +21,9 @@ export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft,
     if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
     if (!TRACEABLE_STATUSES.includes(scan.status)) {
       throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
+    }
+    if (!scan.stationId || !scan.chartFormId || !scan.periodStart) {
+      throw new AppError(HTTP.conflict, 'conflict', 'This scan has no station, chart form or period yet; catalogue it before tracing.');
     }
     const form = await chartFormsRepository.findChartFormById(trx, scan.chartFormId);
     if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
@@ -45,7 +49,10 @@ export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft,
       knots: draft.knots,
     });
     await seriesRepository.insertSeriesPoints(trx, inkLine.id, scan.stationId, points);
-    await scansRepository.updateScanStatus(trx, scanId, 'traced');
+    if (scan.status !== 'traced') {
+      await scansRepository.updateScanStatus(trx, scanId, 'traced');
+      await auditRepository.insertScanAudit(trx, { scanId, personId: authorId, action: 'status', changes: { status: { before: scan.status, after: 'traced' } } });
+    }
 
     const first = points[0];
     return {

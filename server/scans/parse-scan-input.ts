@@ -1,12 +1,20 @@
+import { normalizeInstant } from '@shared/api/field-reader';
+import { normalizeTags } from '@shared/api/parse-scan-metadata';
 import { SCAN_STATUSES, type ScanStatus } from '@shared/api/scans';
-import { AppError, HTTP, validationFailed } from '../errors/app-error';
+import { validationFailed } from '../errors/app-error';
+import { parsePathId } from '../http/parse-body';
 import { isUuid } from '../http/parse-query';
 import { parseInstantMs } from '../http/parse-time';
 import type { ScanFilter } from './scans.repository';
 import type { ParsedUploadFields } from './scans.service';
 
-export function parseUploadFields(body: unknown, hasFile: boolean): ParsedUploadFields {
-  const record = (typeof body === 'object' && body !== null ? body : {}) as Record<string, unknown>;
+function asRecord(body: unknown): Record<string, unknown> {
+  return (typeof body === 'object' && body !== null ? body : {}) as Record<string, unknown>;
+}
+
+/** The issue-2 upload (POST /api/scans): station, chart form and period are all required. */
+export function parseUploadFields(body: unknown, hasFile: boolean): Required<Omit<ParsedUploadFields, 'batchId'>> {
+  const record = asRecord(body);
   const details: Record<string, string> = {};
   if (!hasFile) details['file'] = 'a scan file is required in the "file" part';
   if (!isUuid(record['stationId'])) details['stationId'] = 'stationId must be a station id';
@@ -21,6 +29,51 @@ export function parseUploadFields(body: unknown, hasFile: boolean): ParsedUpload
   };
 }
 
+/** An intake file's optional defaults (POST /api/intake/batches/:id/files); empty fields are absent. */
+export function parseIntakeFields(body: unknown, hasFile: boolean): Omit<ParsedUploadFields, 'batchId'> {
+  const record = asRecord(body);
+  const details: Record<string, string> = {};
+  const fields: Omit<ParsedUploadFields, 'batchId'> = {};
+  if (!hasFile) details['file'] = 'a scan file is required in the "file" part';
+  const present = (key: string) => record[key] !== undefined && record[key] !== '';
+  if (present('stationId')) {
+    if (isUuid(record['stationId'])) fields.stationId = record['stationId'];
+    else details['stationId'] = 'stationId must be a station id';
+  }
+  if (present('chartFormId')) {
+    if (isUuid(record['chartFormId'])) fields.chartFormId = record['chartFormId'];
+    else details['chartFormId'] = 'chartFormId must be a chart form id';
+  }
+  if (present('periodStart')) {
+    const periodStartMs = parseInstantMs(record['periodStart']);
+    if (periodStartMs === null) details['periodStart'] = 'periodStart must be an ISO 8601 UTC instant, e.g. 1931-03-02T08:00Z';
+    else fields.periodStart = new Date(periodStartMs);
+  }
+  if (Object.keys(details).length > 0) throw validationFailed(details, 'The upload has invalid fields.');
+  return fields;
+}
+
+function readId(query: Record<string, unknown>, key: string, details: Record<string, string>): string | undefined {
+  const value = query[key];
+  if (value === undefined || value === '') return undefined;
+  if (isUuid(value)) return value;
+  details[key] = `${key} must be an id`;
+  return undefined;
+}
+
+function readInstant(query: Record<string, unknown>, key: string, details: Record<string, string>): Date | undefined {
+  const value = query[key];
+  if (value === undefined || value === '') return undefined;
+  // A bare date means that day from 00:00 UTC.
+  const instant = typeof value === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(value) ? normalizeInstant(`${value}T00:00Z`) : normalizeInstant(value);
+  if (instant === null) {
+    details[key] = `${key} must be an ISO 8601 UTC instant or date, e.g. 1931-03-02T00:00Z`;
+    return undefined;
+  }
+  return new Date(instant);
+}
+
+/** The catalogue filters of GET /api/scans and /api/scans/status-counts. */
 export function parseScanFilter(query: Record<string, unknown>): ScanFilter {
   const details: Record<string, string> = {};
   const filter: ScanFilter = {};
@@ -29,17 +82,30 @@ export function parseScanFilter(query: Record<string, unknown>): ScanFilter {
     if (typeof status === 'string' && (SCAN_STATUSES as readonly string[]).includes(status)) filter.status = status as ScanStatus;
     else details['status'] = `status must be one of: ${SCAN_STATUSES.join(', ')}`;
   }
-  const stationId = query['stationId'];
-  if (stationId !== undefined && stationId !== '') {
-    if (isUuid(stationId)) filter.stationId = stationId;
-    else details['stationId'] = 'stationId must be a station id';
+  filter.stationId = readId(query, 'stationId', details);
+  filter.instrumentId = readId(query, 'instrumentId', details);
+  filter.chartFormId = readId(query, 'chartFormId', details);
+  filter.batchId = readId(query, 'batchId', details);
+  filter.from = readInstant(query, 'from', details);
+  filter.to = readInstant(query, 'to', details);
+  if (filter.from && filter.to && filter.to < filter.from) details['to'] = 'to must not be before from';
+  const tag = query['tag'];
+  if (tag !== undefined) {
+    const tags = Array.isArray(tag) ? tag : [tag];
+    if (tags.some((item) => typeof item !== 'string' || item.length > 100)) details['tag'] = 'tag must be text of up to 100 characters';
+    else filter.tags = normalizeTags(tags as string[]);
+  }
+  const q = query['q'];
+  if (q !== undefined && q !== '') {
+    if (typeof q !== 'string' || q.length > 200) details['q'] = 'q must be text of up to 200 characters';
+    else filter.q = q.trim();
   }
   if (Object.keys(details).length > 0) throw validationFailed(details, 'The scan filters are invalid.');
+  for (const key of Object.keys(filter) as (keyof ScanFilter)[]) if (filter[key] === undefined) delete filter[key];
   return filter;
 }
 
 /** A scan id from the path, or 404: a malformed id names no scan. */
 export function parseScanId(value: unknown): string {
-  if (!isUuid(value)) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
-  return value;
+  return parsePathId(value, 'scan_not_found', 'scan');
 }

@@ -1,10 +1,15 @@
 import type { PageQuery } from '@shared/api/paging';
-import type { ScanDetail, ScanSortKey, ScanStatus, ScanSummary } from '@shared/api/scans';
-import type { Insertable } from 'kysely';
+import type { DerivativeState, ScanDetail, ScanSortKey, ScanStatus, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
+import { SCAN_STATUSES } from '@shared/api/scans';
+import type { Insertable, Updateable } from 'kysely';
 import type { DbOrTrx } from '../db/database';
-import { AppError, HTTP } from '../errors/app-error';
 import { PG_FOREIGN_KEY_VIOLATION, PG_UNIQUE_VIOLATION, pgConstraint, pgErrorCode } from '../db/pg-errors';
+import { AppError, HTTP } from '../errors/app-error';
+import { scanFilterWhere, type ScanFilter } from './scan-filters';
+import { selectScans, toScanDetail, toScanSummary } from './scan-row';
 import type { ScanTable } from './scan.table';
+
+export type { ScanFilter } from './scan-filters';
 
 const SORT_COLUMNS = {
   periodStart: 'scan.period_start',
@@ -14,138 +19,170 @@ const SORT_COLUMNS = {
   originalName: 'scan.original_name',
 } as const;
 
-export interface ScanFilter {
-  status?: ScanStatus;
-  stationId?: string;
-}
-
-function selectScanSummaries(db: DbOrTrx) {
-  return db
-    .selectFrom('scan')
-    .innerJoin('station', 'station.id', 'scan.station_id')
-    .innerJoin('chart_form', 'chart_form.id', 'scan.chart_form_id')
-    .select((eb) => [
-      'scan.id',
-      'scan.station_id',
-      'station.name as station_name',
-      'scan.chart_form_id',
-      'chart_form.name as chart_form_name',
-      'scan.period_start',
-      'scan.status',
-      'scan.original_name',
-      'scan.media_type',
-      'scan.size_bytes',
-      'scan.width_px',
-      'scan.height_px',
-      'scan.sha256',
-      'scan.uploaded_at',
-      eb
-        .selectFrom('ink_line')
-        .select((inner) => inner.fn.countAll<number>().as('count'))
-        .whereRef('ink_line.scan_id', '=', 'scan.id')
-        .as('ink_line_count'),
-    ]);
-}
-
-type ScanSummaryRow = Awaited<ReturnType<ReturnType<typeof selectScanSummaries>['executeTakeFirstOrThrow']>>;
-
-function toScanSummary(row: ScanSummaryRow): ScanSummary {
-  return {
-    id: row.id,
-    stationId: row.station_id,
-    stationName: row.station_name,
-    chartFormId: row.chart_form_id,
-    chartFormName: row.chart_form_name,
-    periodStart: row.period_start.toISOString(),
-    status: row.status,
-    originalName: row.original_name,
-    mediaType: row.media_type,
-    sizeBytes: row.size_bytes,
-    widthPx: row.width_px,
-    heightPx: row.height_px,
-    sha256: row.sha256,
-    uploadedAt: row.uploaded_at.toISOString(),
-    inkLineCount: Number(row.ink_line_count ?? 0),
-  };
-}
-
 export async function listScans(
   db: DbOrTrx,
   filter: ScanFilter,
   query: PageQuery<ScanSortKey>,
 ): Promise<{ items: ScanSummary[]; total: number }> {
-  let rows = selectScanSummaries(db);
-  let count = db.selectFrom('scan').select((eb) => eb.fn.countAll<number>().as('total'));
-  if (filter.status) {
-    rows = rows.where('scan.status', '=', filter.status);
-    count = count.where('scan.status', '=', filter.status);
-  }
-  if (filter.stationId) {
-    rows = rows.where('scan.station_id', '=', filter.stationId);
-    count = count.where('scan.station_id', '=', filter.stationId);
-  }
-  const items = await rows
-    .orderBy(SORT_COLUMNS[query.sort ?? 'periodStart'], query.direction)
+  const where = scanFilterWhere(filter);
+  const items = await selectScans(db)
+    .where(where)
+    // Scans still without a period sort last either way, after the dated ones.
+    .orderBy(SORT_COLUMNS[query.sort ?? 'periodStart'], (ob) => (query.direction === 'asc' ? ob.asc().nullsLast() : ob.desc().nullsLast()))
     .orderBy('scan.id')
     .limit(query.pageSize)
     .offset(query.page * query.pageSize)
     .execute();
-  const { total } = await count.executeTakeFirstOrThrow();
+  const { total } = await db
+    .selectFrom('scan')
+    .select((eb) => eb.fn.countAll<number>().as('total'))
+    .where(where)
+    .executeTakeFirstOrThrow();
   return { items: items.map(toScanSummary), total };
 }
 
-export async function findScanById(db: DbOrTrx, scanId: string): Promise<ScanDetail | undefined> {
-  const row = await selectScanSummaries(db).where('scan.id', '=', scanId).executeTakeFirst();
-  return row ? toScanSummary(row) : undefined;
+/** Scans per status under the filter (its own status filter left out). */
+export async function countScansByStatus(db: DbOrTrx, filter: ScanFilter): Promise<ScanStatusCounts> {
+  const rows = await db
+    .selectFrom('scan')
+    .select((eb) => ['scan.status', eb.fn.countAll<number>().as('count')])
+    .where(scanFilterWhere(filter, { withStatus: false }))
+    .groupBy('scan.status')
+    .execute();
+  const counts = Object.fromEntries(SCAN_STATUSES.map((status) => [status, 0])) as ScanStatusCounts;
+  for (const row of rows) counts[row.status] = Number(row.count);
+  return counts;
 }
 
+export async function findScanById(db: DbOrTrx, scanId: string): Promise<ScanDetail | undefined> {
+  const row = await selectScans(db).where('scan.id', '=', scanId).executeTakeFirst();
+  return row ? toScanDetail(row) : undefined;
+}
+
+export async function findScansByIds(db: DbOrTrx, scanIds: string[]): Promise<ScanSummary[]> {
+  if (scanIds.length === 0) return [];
+  const rows = await selectScans(db).where('scan.id', 'in', scanIds).orderBy('scan.original_name').orderBy('scan.page_index').execute();
+  return rows.map(toScanSummary);
+}
+
+export async function findScansInBatch(db: DbOrTrx, batchId: string): Promise<ScanSummary[]> {
+  const rows = await selectScans(db).where('scan.batch_id', '=', batchId).orderBy('scan.original_name').orderBy('scan.page_index').execute();
+  return rows.map(toScanSummary);
+}
+
+/** The first page's scan of a master, by the master's hash. */
 export async function findScanIdBySha256(db: DbOrTrx, sha256: string): Promise<string | undefined> {
-  const row = await db.selectFrom('scan').select('id').where('sha256', '=', sha256).executeTakeFirst();
+  const row = await db.selectFrom('scan').select('id').where('sha256', '=', sha256).orderBy('page_index').executeTakeFirst();
   return row?.id;
 }
 
-/** Where a scan's master is stored, with its hash (for the preview cache). */
-export async function findScanFile(db: DbOrTrx, scanId: string): Promise<{ storageKey: string; sha256: string } | undefined> {
-  const row = await db.selectFrom('scan').select(['storage_key', 'sha256']).where('id', '=', scanId).executeTakeFirst();
-  return row ? { storageKey: row.storage_key, sha256: row.sha256 } : undefined;
+/** Where a scan's master is stored and which page of it the scan is. */
+export interface ScanFile {
+  storageKey: string;
+  sha256: string;
+  mediaType: string;
+  pageIndex: number;
+  widthPx: number;
+  heightPx: number;
+}
+
+export async function findScanFile(db: DbOrTrx, scanId: string): Promise<ScanFile | undefined> {
+  const row = await db
+    .selectFrom('scan')
+    .select(['storage_key', 'sha256', 'media_type', 'page_index', 'width_px', 'height_px'])
+    .where('id', '=', scanId)
+    .executeTakeFirst();
+  return row
+    ? { storageKey: row.storage_key, sha256: row.sha256, mediaType: row.media_type, pageIndex: row.page_index, widthPx: row.width_px, heightPx: row.height_px }
+    : undefined;
 }
 
 /**
- * Inserts a scan row. A second upload of the same bytes that raced past the service's own check
- * hits the unique index on sha256; that comes back as `{ duplicateOf }` instead of an exception.
+ * Inserts one row per page of a master. A second upload of the same bytes that raced past the service's
+ * own check hits the unique (sha256, page_index); that comes back as `{ duplicateOf }` instead of an exception.
  */
-export async function insertScan(
+export async function insertScans(
   db: DbOrTrx,
-  scan: Insertable<ScanTable>,
-): Promise<{ scanId: string } | { duplicateOf: string | undefined }> {
+  pages: Insertable<ScanTable>[],
+): Promise<{ scanIds: string[] } | { duplicateOf: string | undefined }> {
   try {
-    const { id } = await db.insertInto('scan').values(scan).returning('id').executeTakeFirstOrThrow();
-    return { scanId: id };
+    const rows = await db.insertInto('scan').values(pages).returning(['id', 'page_index']).execute();
+    return { scanIds: rows.sort((a, b) => a.page_index - b.page_index).map((row) => row.id) };
   } catch (error) {
     if (pgErrorCode(error) === PG_FOREIGN_KEY_VIOLATION) throw missingReference(pgConstraint(error));
     if (pgErrorCode(error) !== PG_UNIQUE_VIOLATION) throw error;
-    return { duplicateOf: await findScanIdBySha256(db, scan.sha256) };
+    return { duplicateOf: undefined };
   }
 }
 
-/** A row the scan points at was removed between the service's checks and the insert. */
-function missingReference(constraint: string | undefined): AppError {
+/** A row the scan points at was removed between the service's checks and the write. */
+export function missingReference(constraint: string | undefined): AppError {
   if (constraint === 'scan_station_id_fkey') return new AppError(HTTP.notFound, 'station_not_found', 'There is no station with this id.');
-  if (constraint === 'scan_chart_form_id_fkey') {
-    return new AppError(HTTP.notFound, 'chart_form_not_found', 'There is no chart form with this id.');
-  }
+  if (constraint === 'scan_chart_form_id_fkey') return new AppError(HTTP.notFound, 'chart_form_not_found', 'There is no chart form with this id.');
+  if (constraint === 'scan_instrument_id_fkey') return new AppError(HTTP.notFound, 'instrument_not_found', 'There is no instrument with this id.');
+  if (constraint === 'scan_batch_id_fkey') return new AppError(HTTP.notFound, 'intake_batch_not_found', 'There is no intake batch with this id.');
   return new AppError(HTTP.unauthorized, 'unauthenticated', 'Your account no longer exists.');
 }
 
+/** The scan's row locked for a change in this transaction. */
+export async function lockScan(db: DbOrTrx, scanId: string): Promise<ScanDetail | undefined> {
+  const locked = await db.selectFrom('scan').select('id').where('id', '=', scanId).forUpdate().executeTakeFirst();
+  return locked ? findScanById(db, scanId) : undefined;
+}
+
+/** Writes columns and bumps the version, only while the row is at `version`; false when it is not. */
+export async function updateScanColumns(db: DbOrTrx, scanId: string, version: number, columns: Updateable<ScanTable>): Promise<boolean> {
+  try {
+    const result = await db
+      .updateTable('scan')
+      .set({ ...columns, version: version + 1 })
+      .where('id', '=', scanId)
+      .where('version', '=', version)
+      .executeTakeFirst();
+    return Number(result.numUpdatedRows) === 1;
+  } catch (error) {
+    if (pgErrorCode(error) === PG_FOREIGN_KEY_VIOLATION) throw missingReference(pgConstraint(error));
+    throw error;
+  }
+}
+
 export async function updateScanStatus(db: DbOrTrx, scanId: string, status: ScanStatus): Promise<void> {
-  await db.updateTable('scan').set({ status }).where('id', '=', scanId).execute();
+  await db
+    .updateTable('scan')
+    .set((eb) => ({ status, version: eb('version', '+', 1) }))
+    .where('id', '=', scanId)
+    .execute();
+}
+
+/** Records the worker's progress on a scan's derivatives (no version bump: it is not catalogue metadata). */
+export async function setDerivativeState(
+  db: DbOrTrx,
+  scanId: string,
+  state: DerivativeState,
+  details: { error?: string | null; isAttempt?: boolean } = {},
+): Promise<void> {
+  await db
+    .updateTable('scan')
+    .set((eb) => ({
+      derivative_state: state,
+      derivative_error: details.error ?? null,
+      ...(details.isAttempt ? { derivative_attempts: eb('derivative_attempts', '+', 1) } : {}),
+    }))
+    .where('id', '=', scanId)
+    .execute();
+}
+
+/** Scans whose derivatives a worker should (re)make: never finished, or stuck mid-job by a crash. */
+export async function findScanIdsNeedingDerivatives(db: DbOrTrx): Promise<string[]> {
+  const rows = await db.selectFrom('scan').select('id').where('derivative_state', 'in', ['queued', 'working']).execute();
+  return rows.map((row) => row.id);
 }
 
 /** What the hand-in needs of a scan, locked against a concurrent status change when run in a transaction. */
 export async function findScanForTracing(
   db: DbOrTrx,
   scanId: string,
-): Promise<{ id: string; stationId: string; chartFormId: string; periodStart: Date; status: ScanStatus } | undefined> {
+): Promise<{ id: string; stationId: string | null; chartFormId: string | null; periodStart: Date | null; status: ScanStatus } | undefined> {
   const row = await db
     .selectFrom('scan')
     .select(['id', 'station_id', 'chart_form_id', 'period_start', 'status'])

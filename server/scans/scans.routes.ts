@@ -1,33 +1,64 @@
 import { Router, type Request, type Response } from 'express';
-import type { Page } from '@shared/api/paging';
-import { SCAN_SORT_KEYS, type ScanDetail, type ScanSummary } from '@shared/api/scans';
+import { DEFAULT_PAGE_SIZE, type Page } from '@shared/api/paging';
+import { parseScanMetadataInput, parseScanStatusChange } from '@shared/api/parse-scan-metadata';
+import { SCAN_SORT_KEYS, type ScanAuditEntry, type ScanDetail, type ScanStatusCounts, type ScanSummary } from '@shared/api/scans';
 import type { AppDeps } from '../app-deps';
 import { requireRoles, signedInPerson } from '../auth/require-roles';
 import { HTTP } from '../errors/app-error';
+import { valueOrThrow } from '../http/parse-body';
 import { readPageQuery } from '../http/parse-query';
 import { parseScanFilter, parseScanId, parseUploadFields } from './parse-scan-input';
-import { receiveScanFile } from './scan-upload';
+import { receiveScanFile, uploadedFile } from './scan-upload';
 import * as scansService from './scans.service';
 
 /** Mounted at /api/scans behind authenticate. */
-export function scansRoutes({ db, storage, config }: AppDeps): Router {
+export function scansRoutes(deps: AppDeps): Router {
+  const { db, storage, config } = deps;
   const router = Router();
   const mayRead = requireRoles('archivist', 'volunteer');
+  const mayEdit = requireRoles('archivist');
 
   router.get('/', mayRead, async (req, res: Response<Page<ScanSummary>>) => {
     const filter = parseScanFilter(req.query);
     res.json(await scansService.listScans(db, filter, readPageQuery(req.query, SCAN_SORT_KEYS)));
   });
 
+  router.get('/status-counts', mayEdit, async (req, res: Response<ScanStatusCounts>) => {
+    res.json(await scansService.countScansByStatus(db, parseScanFilter(req.query)));
+  });
+
   // Roles are checked before multer so that a refused caller never gets to stream a file to disk.
-  router.post('/', requireRoles('archivist'), receiveScanFile(storage, config.maxUploadBytes), async (req: Request, res: Response<ScanDetail>) => {
-    const fields = parseUploadFields(req.body, req.file !== undefined);
-    const file = { tempPath: req.file!.path, originalName: req.file!.originalname };
-    res.status(HTTP.created).json(await scansService.uploadScan(db, storage, file, fields, signedInPerson(req.user).id));
+  router.post('/', mayEdit, receiveScanFile(storage, config.maxUploadBytes), async (req: Request, res: Response<ScanDetail>) => {
+    const file = uploadedFile(req);
+    const fields = parseUploadFields(req.body, file !== undefined);
+    const received = { tempPath: file!.path, originalName: file!.originalname, sha256: file!.sha256 };
+    res.status(HTTP.created).json(await scansService.uploadScan(deps, received, fields, signedInPerson(req.user).id));
   });
 
   router.get('/:scanId', mayRead, async (req, res: Response<ScanDetail>) => {
     res.json(await scansService.getScan(db, parseScanId(req.params.scanId)));
+  });
+
+  router.patch('/:scanId', mayEdit, async (req, res: Response<ScanDetail>) => {
+    const scanId = parseScanId(req.params.scanId);
+    const input = valueOrThrow(parseScanMetadataInput(req.body), 'The scan has invalid fields.');
+    res.json(await scansService.updateScanMetadata(db, scanId, input, signedInPerson(req.user).id));
+  });
+
+  router.post('/:scanId/status', mayEdit, async (req, res: Response<ScanDetail>) => {
+    const scanId = parseScanId(req.params.scanId);
+    const change = valueOrThrow(parseScanStatusChange(req.body), 'The status change is invalid.');
+    res.json(await scansService.changeScanStatus(db, scanId, change, signedInPerson(req.user).id));
+  });
+
+  router.get('/:scanId/audit', mayEdit, async (req, res: Response<Page<ScanAuditEntry>>) => {
+    const scanId = parseScanId(req.params.scanId);
+    const query = readPageQuery({ pageSize: String(DEFAULT_PAGE_SIZE), ...req.query }, [] as const);
+    res.json(await scansService.listScanAudit(db, scanId, query));
+  });
+
+  router.post('/:scanId/derivatives/retry', mayEdit, async (req, res: Response<ScanDetail>) => {
+    res.json(await scansService.retryDerivatives(deps, parseScanId(req.params.scanId)));
   });
 
   router.get('/:scanId/preview', mayRead, async (req, res) => {

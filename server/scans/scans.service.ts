@@ -1,90 +1,32 @@
 import fs from 'node:fs/promises';
 import type { Page, PageQuery } from '@shared/api/paging';
-import type { ScanDetail, ScanSortKey, ScanSummary, ScanUploadFields } from '@shared/api/scans';
-import * as chartFormsService from '../chart-forms/chart-forms.service';
-import type { Db } from '../db/database';
-import { AppError, HTTP } from '../errors/app-error';
-import * as stationsService from '../stations/stations.service';
-import { sha256OfFile, type Storage } from '../storage/storage';
-import { detectImageType, readImageSize, writePreview } from './scan-image';
+import type { ScanAuditEntry, ScanDetail, ScanMetadataInput, ScanSortKey, ScanStatusChange, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
+import { SCAN_STATUS_LABELS } from '@shared/api/scans';
+import * as auditRepository from '../audit/scan-audit.repository';
+import type { Db, DbOrTrx } from '../db/database';
+import { AppError, HTTP, validationFailed } from '../errors/app-error';
+import { versionConflict } from '../http/version-conflict';
+import * as instrumentsRepository from '../instruments/instruments.repository';
+import type { Storage } from '../storage/storage';
+import { diffScanMetadata, TRACING_FIELDS } from './scan-metadata';
+import { checkStatusMove, missingForTracing } from './scan-status';
+import type { ScanDeps } from './scan-deps';
+import { PREVIEW_LONGEST_SIDE_PX, writePreview } from './scan-image';
+import { findPageSource } from '../jobs/page-source';
 import * as scansRepository from './scans.repository';
 import type { ScanFilter } from './scans.repository';
+import { uploadMaster, type ParsedUploadFields, type ReceivedFile } from './scan-upload.service';
 
-/** A file already on disk in storage.tempDir, with the name the uploader gave it. */
-export interface ReceivedFile {
-  tempPath: string;
-  originalName: string;
+export type { ParsedUploadFields, ReceivedFile } from './scan-upload.service';
+
+function scanNotFound(): AppError {
+  return new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
 }
 
-export interface ParsedUploadFields extends Omit<ScanUploadFields, 'periodStart'> {
-  periodStart: Date;
-}
-
-function duplicateScan(scanId: string | undefined): AppError {
-  return new AppError(HTTP.conflict, 'duplicate_scan', 'This file has been uploaded before.', { scanId });
-}
-
-async function removeQuietly(filePath: string): Promise<void> {
-  await fs.rm(filePath, { force: true });
-}
-
-/**
- * Keeps an uploaded chart: checks station and chart form, reads the type from the bytes, refuses a
- * second copy of the same bytes, decodes it (which also makes the preview), stores the master by its
- * SHA-256 and inserts the row. The temp file is consumed; on failure nothing new is left on disk.
- */
-export async function uploadScan(
-  db: Db,
-  storage: Storage,
-  file: ReceivedFile,
-  fields: ParsedUploadFields,
-  uploadedBy: string,
-): Promise<ScanDetail> {
-  const previewTempPath = storage.newTempPath('.jpg');
-  try {
-    await stationsService.getStation(db, fields.stationId);
-    await chartFormsService.getChartForm(db, fields.chartFormId);
-    const { mediaType, extension } = await detectImageType(file.tempPath);
-    const sha256 = await sha256OfFile(file.tempPath);
-    const existingId = await scansRepository.findScanIdBySha256(db, sha256);
-    if (existingId) throw duplicateScan(existingId);
-    const { widthPx, heightPx } = await readImageSize(file.tempPath);
-    await writePreview(file.tempPath, previewTempPath);
-    const { size: sizeBytes } = await fs.stat(file.tempPath);
-
-    const master = await storage.putMaster(file.tempPath, sha256, extension);
-    const previewKey = storage.previewKey(sha256);
-    try {
-      await storage.putCache(previewTempPath, previewKey);
-      const inserted = await scansRepository.insertScan(db, {
-        sha256,
-        storage_key: master.key,
-        media_type: mediaType,
-        size_bytes: sizeBytes,
-        width_px: widthPx,
-        height_px: heightPx,
-        station_id: fields.stationId,
-        chart_form_id: fields.chartFormId,
-        period_start: fields.periodStart,
-        // Station, chart form and period are all known, which is everything tracing needs.
-        status: 'ready_to_trace',
-        original_name: file.originalName,
-        uploaded_by: uploadedBy,
-      });
-      if ('duplicateOf' in inserted) throw duplicateScan(inserted.duplicateOf);
-      return await getScan(db, inserted.scanId);
-    } catch (error) {
-      // Only the upload that created the master may remove it: a same-hash master belongs to another row.
-      if (master.isCreated) {
-        await storage.remove(master.key);
-        await storage.remove(previewKey);
-      }
-      throw error;
-    }
-  } finally {
-    await removeQuietly(file.tempPath);
-    await removeQuietly(previewTempPath);
-  }
+/** The issue-2 upload: one file with station, chart form and period; answers its first page's scan. */
+export async function uploadScan(deps: ScanDeps, file: ReceivedFile, fields: ParsedUploadFields, uploadedBy: string): Promise<ScanDetail> {
+  const [first] = await uploadMaster(deps, file, fields, uploadedBy);
+  return first;
 }
 
 export async function listScans(db: Db, filter: ScanFilter, query: PageQuery<ScanSortKey>): Promise<Page<ScanSummary>> {
@@ -92,24 +34,129 @@ export async function listScans(db: Db, filter: ScanFilter, query: PageQuery<Sca
   return { items, total, page: query.page, pageSize: query.pageSize };
 }
 
-export async function getScan(db: Db, scanId: string): Promise<ScanDetail> {
+export async function countScansByStatus(db: Db, filter: ScanFilter): Promise<ScanStatusCounts> {
+  return scansRepository.countScansByStatus(db, filter);
+}
+
+export async function getScan(db: DbOrTrx, scanId: string): Promise<ScanDetail> {
   const scan = await scansRepository.findScanById(db, scanId);
-  if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
+  if (!scan) throw scanNotFound();
   return scan;
 }
 
-/** Absolute path of the scan's JPEG preview, remade from the master when the cache lost it. */
+/** The instrument must have served the scan's station (when both are set). */
+async function checkInstrumentStation(db: DbOrTrx, instrumentId: string | null, stationId: string | null): Promise<void> {
+  if (!instrumentId) return;
+  const instrument = await instrumentsRepository.findInstrumentById(db, instrumentId);
+  if (!instrument) throw new AppError(HTTP.notFound, 'instrument_not_found', 'There is no instrument with this id.');
+  if (stationId && instrument.stationId !== stationId) {
+    throw validationFailed({ instrumentId: 'this instrument belongs to another station' }, 'The scan has invalid fields.');
+  }
+}
+
+/**
+ * Edits a scan's catalogue metadata at the version the archivist read, writing the audit row in the same
+ * transaction. Tracing fields stay fixed on a traced or approved scan, and a ready-to-trace scan keeps
+ * everything tracing needs.
+ */
+export async function updateScanMetadata(db: Db, scanId: string, input: ScanMetadataInput, personId: string): Promise<ScanDetail> {
+  return db.transaction().execute((trx) => applyScanMetadata(trx, scanId, input, personId, 'edit'));
+}
+
+/** updateScanMetadata's work inside a caller's transaction (the inventory import applies many rows in one). */
+export async function applyScanMetadata(
+  trx: DbOrTrx,
+  scanId: string,
+  input: ScanMetadataInput,
+  personId: string,
+  action: 'edit' | 'inventory',
+): Promise<ScanDetail> {
+  {
+    const current = await scansRepository.lockScan(trx, scanId);
+    if (!current) throw scanNotFound();
+    if (current.version !== input.version) throw versionConflict('scan', current.version);
+    const { version, ...patch } = input;
+    const { columns, changes } = diffScanMetadata(current, patch);
+    if (Object.keys(changes).length === 0) return current;
+
+    if ((current.status === 'traced' || current.status === 'approved') && TRACING_FIELDS.some((field) => field in changes)) {
+      throw new AppError(
+        HTTP.conflict,
+        'conflict',
+        `The station, chart form and period of a ${SCAN_STATUS_LABELS[current.status]} scan are what its ink line was read with; return it to ready to trace first.`,
+      );
+    }
+    const merged = { ...current, ...patch } as ScanDetail;
+    if (current.status === 'ready_to_trace') {
+      const missing = missingForTracing(merged).filter((field) => field !== 'derivativeState');
+      if (missing.length > 0) {
+        throw new AppError(HTTP.conflict, 'conflict', 'A scan that is ready to trace needs its station, chart form and period start.', { missing });
+      }
+    }
+    if ('instrumentId' in changes || 'stationId' in changes) await checkInstrumentStation(trx, merged.instrumentId, merged.stationId);
+    if (merged.chartOn && merged.chartOff && merged.chartOff < merged.chartOn) {
+      throw validationFailed({ chartOff: 'chartOff must not be before chartOn' }, 'The scan has invalid fields.');
+    }
+
+    if (!(await scansRepository.updateScanColumns(trx, scanId, version, columns))) throw versionConflict('scan', current.version);
+    await auditRepository.insertScanAudit(trx, { scanId, personId, action, changes });
+    return getScan(trx, scanId);
+  }
+}
+
+/** Moves a scan through the catalogue states, audited in the same transaction. */
+export async function changeScanStatus(db: Db, scanId: string, change: ScanStatusChange, personId: string): Promise<ScanDetail> {
+  return db.transaction().execute(async (trx) => {
+    const current = await scansRepository.lockScan(trx, scanId);
+    if (!current) throw scanNotFound();
+    checkStatusMove(current, change.status);
+    const withdrawnReason = change.status === 'withdrawn' ? (change.reason ?? null) : null;
+    await scansRepository.updateScanColumns(trx, scanId, current.version, { status: change.status, withdrawn_reason: withdrawnReason });
+    const changes: Record<string, { before: unknown; after: unknown }> = { status: { before: current.status, after: change.status } };
+    if (withdrawnReason !== current.withdrawnReason) changes['withdrawnReason'] = { before: current.withdrawnReason, after: withdrawnReason };
+    await auditRepository.insertScanAudit(trx, { scanId, personId, action: 'status', changes });
+    return getScan(trx, scanId);
+  });
+}
+
+export async function listScanAudit(db: Db, scanId: string, query: PageQuery): Promise<Page<ScanAuditEntry>> {
+  await getScan(db, scanId);
+  const { items, total } = await auditRepository.listScanAudit(db, scanId, query);
+  return { items, total, page: query.page, pageSize: query.pageSize };
+}
+
+/** Sends a failed scan's derivative job again (409 unless it failed). */
+export async function retryDerivatives(deps: ScanDeps, scanId: string): Promise<ScanDetail> {
+  return deps.db.transaction().execute(async (trx) => {
+    const current = await scansRepository.lockScan(trx, scanId);
+    if (!current) throw scanNotFound();
+    if (current.derivativeState !== 'failed') {
+      throw new AppError(HTTP.conflict, 'conflict', `Only failed derivatives can be retried; these are ${current.derivativeState}.`);
+    }
+    await scansRepository.setDerivativeState(trx, scanId, 'queued', { error: current.derivativeError });
+    await deps.jobs.enqueue(trx, [scanId]);
+    return getScan(trx, scanId);
+  });
+}
+
+/** Absolute path of the scan's JPEG preview, remade from its page when the cache lost it. */
 export async function getPreviewPath(db: Db, storage: Storage, scanId: string): Promise<string> {
   const file = await scansRepository.findScanFile(db, scanId);
-  if (!file) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
-  const previewKey = storage.previewKey(file.sha256);
+  if (!file) throw scanNotFound();
+  const previewKey = storage.previewKey(file.sha256, file.pageIndex);
   if (!(await storage.exists(previewKey))) {
+    const source = await findPageSource(storage, file);
+    if (!source) throw new AppError(HTTP.conflict, 'conflict', 'The preview of this PDF page is not made yet; try again when its derivatives are ready.');
     const tempPath = storage.newTempPath('.jpg');
     try {
-      await writePreview(storage.pathOf(file.storageKey), tempPath);
+      if (file.mediaType === 'application/pdf' || file.mediaType === 'image/tiff') {
+        await source.open().resize(PREVIEW_LONGEST_SIDE_PX, PREVIEW_LONGEST_SIDE_PX, { fit: 'inside', withoutEnlargement: true }).flatten({ background: '#ffffff' }).jpeg({ quality: 85 }).toFile(tempPath);
+      } else {
+        await writePreview(storage.pathOf(file.storageKey), tempPath, file.pageIndex);
+      }
       await storage.putCache(tempPath, previewKey);
     } finally {
-      await removeQuietly(tempPath);
+      await fs.rm(tempPath, { force: true });
     }
   }
   return storage.pathOf(previewKey);

@@ -20,8 +20,17 @@ export interface Storage {
   putMaster(tempPath: string, sha256: string, extension: string): Promise<{ key: string; isCreated: boolean }>;
   /** Absolute path of a stored key. */
   pathOf(key: string): string;
-  /** Key of the cached preview of a master. */
-  previewKey(sha256: string): string;
+  /** Key of the cached preview of one page of a master (page 0 keeps the plain `<sha256>.jpg` name). */
+  previewKey(sha256: string, pageIndex?: number): string;
+  /** Key of the folder holding one page's derivatives (page raster, thumbnail, IIIF tiles, rendered IIIF answers). */
+  derivativesKey(sha256: string, pageIndex: number): string;
+  /**
+   * Puts a finished temp folder at `key`, replacing the folder there (caches only). The swap is two renames,
+   * so a reader sees the old set or the new set of files, never a half-written one.
+   */
+  putFolder(tempFolder: string, key: string): Promise<void>;
+  /** Removes a stored folder and everything in it; a missing folder is not an error. */
+  removeFolder(key: string): Promise<void>;
   /** Moves a finished temp file to `key`, replacing whatever is there (for caches only). */
   putCache(tempPath: string, key: string): Promise<void>;
   /** Removes a stored file; a missing file is not an error. */
@@ -88,9 +97,29 @@ export function createFileStorage(rootDir: string): Storage {
       }
     },
     pathOf,
-    previewKey(sha256) {
+    previewKey(sha256, pageIndex = 0) {
       if (!SHA256_PATTERN.test(sha256)) throw new Error(`Not a SHA-256 hex digest: ${sha256}`);
-      return `previews/${sha256.slice(0, 2)}/${sha256}.jpg`;
+      return `previews/${sha256.slice(0, 2)}/${sha256}${pageIndex === 0 ? '' : `-p${pageIndex}`}.jpg`;
+    },
+    derivativesKey(sha256, pageIndex) {
+      if (!SHA256_PATTERN.test(sha256)) throw new Error(`Not a SHA-256 hex digest: ${sha256}`);
+      if (!Number.isInteger(pageIndex) || pageIndex < 0) throw new Error(`Not a page index: ${pageIndex}`);
+      return `derivatives/${sha256.slice(0, 2)}/${sha256}-p${pageIndex}`;
+    },
+    async putFolder(tempFolder, key) {
+      const target = pathOf(key);
+      await fs.mkdir(path.dirname(target), { recursive: true });
+      const retired = path.join(tempDir, `${randomUUID()}.retired`);
+      try {
+        await fs.rename(target, retired);
+      } catch (error) {
+        if (!isMissing(error)) throw error;
+      }
+      await fs.rename(tempFolder, target);
+      await fs.rm(retired, { recursive: true, force: true });
+    },
+    async removeFolder(key) {
+      await fs.rm(pathOf(key), { recursive: true, force: true });
     },
     async putCache(tempPath, key) {
       const target = pathOf(key);

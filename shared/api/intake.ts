@@ -56,7 +56,11 @@ export interface IntakeFileFields {
   periodStart?: string;
 }
 
-/** Answer of POST /api/intake/batches/:id/files (201 stored, 409 duplicate; a rejected file answers 4xx ApiErrorBody). */
+/**
+ * Answer of POST /api/intake/batches/:id/files when the file is stored (201). A duplicate answers 409 and a
+ * rejected file 4xx, both with the usual ApiErrorBody (a duplicate's `details` carry `existingScanId`);
+ * either way the file is recorded in the batch summary.
+ */
 export interface IntakeFileResult {
   fileName: string;
   outcome: IntakeOutcome;
@@ -70,6 +74,8 @@ export interface IntakeFileResult {
 /** Header names of an inventory CSV, in any order, case-insensitive (extra columns are ignored). */
 export const INVENTORY_COLUMNS = ['file name', 'station', 'chart on', 'chart off', 'box', 'folder', 'notes'] as const;
 export type InventoryColumn = (typeof INVENTORY_COLUMNS)[number];
+/** Further header names an inventory may carry; only `file name` is required, unknown columns are ignored. */
+export const INVENTORY_OPTIONAL_COLUMNS = ['collection', 'item', 'observer', 'tags'] as const;
 
 /** Answer of POST /api/intake/batches/:id/inventory (body text/csv). `line` counts from 1 at the header row. */
 export interface InventoryMatch {

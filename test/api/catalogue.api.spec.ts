@@ -30,8 +30,8 @@ describe('stations and chart forms', () => {
     expect(response.status).toBe(200);
     expect(response.body.total).toBe(2);
     expect(response.body.items).toEqual<StationSummary[]>([
-      { id: expect.any(String), code: 'ABE', name: 'Yarrow Point', latitude: 51.5, longitude: -0.25, elevationM: 12.5, timeZone: 'Europe/London' },
-      { id: expect.any(String), code: 'ZED', name: 'Alder Moss', latitude: null, longitude: null, elevationM: null, timeZone: 'Europe/London' },
+      { id: expect.any(String), code: 'ABE', name: 'Yarrow Point', latitude: 51.5, longitude: -0.25, elevationM: 12.5, timeZone: 'Europe/London', wigosId: null, barometerHeightM: null, timeStandard: 'local_standard', historyNotes: '', version: 1 },
+      { id: expect.any(String), code: 'ZED', name: 'Alder Moss', latitude: null, longitude: null, elevationM: null, timeZone: 'Europe/London', wigosId: null, barometerHeightM: null, timeStandard: 'local_standard', historyNotes: '', version: 1 },
     ]);
   });
 
@@ -46,7 +46,7 @@ describe('stations and chart forms', () => {
 
     expect(response.status).toBe(200);
     expect(response.body.items).toEqual<ChartFormSummary[]>([
-      { ...TEST_WEEKLY_FORM, id: expect.any(String), name: 'Daily hPa', drumHours: 26, mmPerHour: 8, pivotPressure: 1000 },
+      { ...TEST_WEEKLY_FORM, id: expect.any(String), name: 'Daily hPa', drumHours: 26, mmPerHour: 8, pivotPressure: 1000, version: 1, scanCount: 0 },
       {
         ...TEST_WEEKLY_FORM,
         id: expect.any(String),
@@ -57,6 +57,8 @@ describe('stations and chart forms', () => {
         mmPerUnit: 30,
         penArmRadiusMm: null,
         arcSide: -1,
+        version: 1,
+        scanCount: 0,
       },
     ]);
   });

@@ -25,7 +25,7 @@ describe('demo scenario seed', () => {
   });
 
   it('when the demo is seeded, then every demo account signs in with the demo password and holds its role', async () => {
-    await seedDemo(context.db, context.storage, { fixturesDir: MISSING_FIXTURES_DIR });
+    await seedDemo(context, { fixturesDir: MISSING_FIXTURES_DIR });
 
     const responses = await Promise.all(
       DEMO_PEOPLE.map((person) => request(context.app).post(API.signIn).send({ email: person.email, password: DEMO_PASSWORD })),
@@ -43,9 +43,9 @@ describe('demo scenario seed', () => {
   });
 
   it('when the demo is seeded twice, then the second run does nothing', async () => {
-    const first = await seedDemo(context.db, context.storage, { fixturesDir: MISSING_FIXTURES_DIR });
+    const first = await seedDemo(context, { fixturesDir: MISSING_FIXTURES_DIR });
 
-    const second = await seedDemo(context.db, context.storage, { fixturesDir: MISSING_FIXTURES_DIR });
+    const second = await seedDemo(context, { fixturesDir: MISSING_FIXTURES_DIR });
 
     expect(first.isSeeded).toBe(true);
     expect(second.isSeeded).toBe(false);
@@ -54,7 +54,7 @@ describe('demo scenario seed', () => {
   });
 
   it('when the generated weekly sample exists, then Kestrel Ridge has a ready scan and a traced one with a series', async () => {
-    const result = await seedDemo(context.db, context.storage, { fixturesDir: FIXTURES_DIR });
+    const result = await seedDemo(context, { fixturesDir: FIXTURES_DIR });
 
     const scans = await context.db
       .selectFrom('scan')
@@ -75,11 +75,11 @@ describe('demo scenario seed', () => {
   });
 
   it('when an earlier seed stopped after its uploads, then running it again finishes without a second copy', async () => {
-    const first = await seedDemo(context.db, context.storage, { fixturesDir: FIXTURES_DIR });
+    const first = await seedDemo(context, { fixturesDir: FIXTURES_DIR });
     await context.db.deleteFrom('demo_seed').execute();
     await context.db.deleteFrom('ink_line').execute();
 
-    const again = await seedDemo(context.db, context.storage, { fixturesDir: FIXTURES_DIR });
+    const again = await seedDemo(context, { fixturesDir: FIXTURES_DIR });
 
     expect(again).toEqual({ ...first, isSeeded: true });
     expect(await context.db.selectFrom('scan').select('id').execute()).toHaveLength(2);

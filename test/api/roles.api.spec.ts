@@ -110,8 +110,7 @@ describe('who may call each route', () => {
     const tempPath = context.storage.newTempPath('.upload');
     await fs.writeFile(tempPath, await makePng(300, 200));
     const scan = await scansService.uploadScan(
-      context.db,
-      context.storage,
+      context,
       { tempPath, originalName: 'role-table.png' },
       { stationId, chartFormId, periodStart: new Date(PERIOD_START) },
       people.archivist.id,

@@ -124,7 +124,7 @@ describe('scan upload', () => {
     expect(first.status).toBe(201);
     expect(second.status).toBe(409);
     expect(second.body.error.code).toBe('duplicate_scan');
-    expect(second.body.error.details).toEqual({ scanId: first.body.id });
+    expect(second.body.error.details).toEqual({ scanId: first.body.id, existingScanId: first.body.id });
     expect(await scanRowCount()).toBe(1);
     expect(await listFiles(path.join(context.storage.rootDir, 'masters'))).toHaveLength(1);
   });

@@ -1,7 +1,7 @@
 import type { Role } from '@shared/api/roles';
 import type { ScanStatus } from '@shared/api/scans';
 import type { SeriesFlag } from '@shared/api/series';
-import type { StationSummary } from '@shared/api/stations';
+import type { StationInput, StationSummary } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
 import { hashPassword } from '../../server/auth/passwords';
 import { issueToken } from '../../server/auth/tokens';
@@ -43,7 +43,7 @@ export async function createPerson(db: Db, roles: Role[], email = `person-${next
   return { id, email, password: TEST_PASSWORD, roles, token };
 }
 
-export async function createStation(db: Db, overrides: Partial<Omit<StationSummary, 'id'>> = {}): Promise<StationSummary> {
+export async function createStation(db: Db, overrides: Partial<StationInput> = {}): Promise<StationSummary> {
   const n = nextNumber();
   return stationsRepository.insertStation(db, {
     code: `T${n}`,

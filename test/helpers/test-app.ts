@@ -8,6 +8,9 @@ import { createApp } from '../../server/app';
 import type { Config } from '../../server/config';
 import { createDb } from '../../server/db/create-db';
 import type { Database, Db } from '../../server/db/database';
+import type PgBoss from 'pg-boss';
+import { pgBossDerivativeJobs, startJobBoss, type DerivativeJobs } from '../../server/jobs/job-boss';
+import { startWorker, type RunningWorker } from '../../server/jobs/worker';
 import { createFileStorage, type Storage } from '../../server/storage/storage';
 
 export const TEST_JWT_SECRET = 'test-secret-at-least-16-characters';
@@ -17,6 +20,11 @@ export interface TestContext {
   db: Db;
   storage: Storage;
   config: Config;
+  /** pg-boss (sending only) that the app enqueues derivative jobs through. */
+  boss: PgBoss;
+  jobs: DerivativeJobs;
+  /** Starts the derivatives worker in this process (stopped by close()). */
+  startWorker(): Promise<RunningWorker>;
   close(): Promise<void>;
 }
 
@@ -50,13 +58,30 @@ export async function createTestContext(overrides: Partial<Config> = {}): Promis
   const db = createDb(config.databaseUrl, 4);
   const storage = createFileStorage(storageDir);
   await storage.ensureFolders();
-  const app = createApp({ db, storage, config, logger: pino({ level: 'silent' }) });
+  const logger = pino({ level: 'silent' });
+  const boss = await startJobBoss(config.databaseUrl, { isWorker: false });
+  const jobs = pgBossDerivativeJobs(boss);
+  const app = createApp({ db, storage, config, logger, jobs });
+  const workers: { worker: RunningWorker; boss: PgBoss }[] = [];
   return {
     app,
     db,
     storage,
     config,
+    boss,
+    jobs,
+    async startWorker() {
+      const workerBoss = await startJobBoss(config.databaseUrl, { isWorker: true });
+      const worker = await startWorker({ db, storage, boss: workerBoss, logger, pollingIntervalSeconds: 0.5 });
+      workers.push({ worker, boss: workerBoss });
+      return worker;
+    },
     async close() {
+      for (const { worker, boss: workerBoss } of workers) {
+        await worker.stop();
+        await workerBoss.stop({ graceful: true, wait: true, timeout: 10_000 });
+      }
+      await boss.stop({ graceful: false, wait: true, timeout: 5_000 });
       await db.destroy();
       await fs.rm(workDir, { recursive: true, force: true });
     },
@@ -64,6 +89,10 @@ export async function createTestContext(overrides: Partial<Config> = {}): Promis
 }
 
 const APP_TABLES: (keyof Database)[] = [
+  'scan_audit',
+  'intake_file',
+  'intake_batch',
+  'instrument',
   'series_point',
   'ink_line',
   'pin_set',
@@ -78,6 +107,23 @@ const APP_TABLES: (keyof Database)[] = [
 /** Empties the given tables (default: every app table); CASCADE takes rows that point at them. */
 export async function truncateTables(db: Db, tables: (keyof Database)[] = APP_TABLES): Promise<void> {
   await sql`truncate table ${sql.join(tables.map((table) => sql.table(table)))} cascade`.execute(db);
+  // Jobs of the truncated scans would otherwise reach a later test's worker.
+  await sql`delete from pgboss.job`.execute(db).catch(() => undefined);
+}
+
+/**
+ * Waits until every given scan's derivatives are ready or failed (the worker runs them in the background),
+ * checking the rows every 200 ms; fails after `timeoutMs`.
+ */
+export async function waitForDerivatives(db: Db, scanIds: string[], timeoutMs = 60_000): Promise<Record<string, string>> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const rows = await db.selectFrom('scan').select(['id', 'derivative_state']).where('id', 'in', scanIds).execute();
+    const states = Object.fromEntries(rows.map((row) => [row.id, row.derivative_state]));
+    if (rows.length === scanIds.length && rows.every((row) => row.derivative_state === 'ready' || row.derivative_state === 'failed')) return states;
+    if (Date.now() > deadline) throw new Error(`derivatives not finished after ${timeoutMs} ms: ${JSON.stringify(states)}`);
+    await new Promise((resolve) => setTimeout(resolve, 200));
+  }
 }
 
 /** Every file under a folder, relative to it (for "nothing was stored" checks). */

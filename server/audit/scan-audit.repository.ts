@@ -1,0 +1,43 @@
+import type { PageQuery } from '@shared/api/paging';
+import type { ScanAuditAction, ScanAuditEntry } from '@shared/api/scans';
+import type { DbOrTrx } from '../db/database';
+import type { AuditChanges } from './scan-audit.table';
+
+export interface NewScanAudit {
+  scanId: string;
+  personId: string;
+  action: ScanAuditAction;
+  changes: AuditChanges;
+}
+
+/** Writes audit rows; call inside the transaction that makes the change, so both land or neither does. */
+export async function insertScanAudit(db: DbOrTrx, ...entries: NewScanAudit[]): Promise<void> {
+  if (entries.length === 0) return;
+  await db
+    .insertInto('scan_audit')
+    .values(entries.map((entry) => ({ scan_id: entry.scanId, person_id: entry.personId, action: entry.action, changes: JSON.stringify(entry.changes) })))
+    .execute();
+}
+
+/** A scan's audit trail, newest first. */
+export async function listScanAudit(db: DbOrTrx, scanId: string, query: PageQuery): Promise<{ items: ScanAuditEntry[]; total: number }> {
+  const rows = await db
+    .selectFrom('scan_audit')
+    .innerJoin('person', 'person.id', 'scan_audit.person_id')
+    .select(['scan_audit.id', 'scan_audit.at', 'scan_audit.action', 'scan_audit.changes', 'person.display_name'])
+    .where('scan_audit.scan_id', '=', scanId)
+    .orderBy('scan_audit.at', 'desc')
+    .orderBy('scan_audit.id', 'desc')
+    .limit(query.pageSize)
+    .offset(query.page * query.pageSize)
+    .execute();
+  const { total } = await db
+    .selectFrom('scan_audit')
+    .select((eb) => eb.fn.countAll<number>().as('total'))
+    .where('scan_id', '=', scanId)
+    .executeTakeFirstOrThrow();
+  return {
+    items: rows.map((row) => ({ id: row.id, at: row.at.toISOString(), personName: row.display_name, action: row.action, changes: row.changes })),
+    total,
+  };
+}

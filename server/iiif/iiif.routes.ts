@@ -1,0 +1,64 @@
+import { Router, type Request, type RequestHandler } from 'express';
+import { IIIF } from '@shared/api/routes';
+import type { AppDeps } from '../app-deps';
+import { requireRoles } from '../auth/require-roles';
+import { parseScanId } from '../scans/parse-scan-input';
+import { INFO_MEDIA_TYPE } from './info-document';
+import { PRESENTATION_MEDIA_TYPE } from './manifest-document';
+import * as iiifService from './iiif.service';
+
+const SEE_OTHER = 303;
+const NO_CONTENT = 204;
+
+/** The scheme, host and port the caller used (Express trusts X-Forwarded-* only from loopback). */
+function originOf(req: Request): string {
+  return `${req.protocol}://${req.get('host')}`;
+}
+
+/**
+ * IIIF Image 3.0 level 1 needs CORS (REFERENCES.md §7); viewers send the bearer token, so the preflight
+ * must allow the Authorization header. Answers preflights before authentication.
+ */
+const iiifCors: RequestHandler = (req, res, next) => {
+  res.set('Access-Control-Allow-Origin', '*');
+  res.set('Access-Control-Allow-Headers', 'Authorization');
+  res.set('Access-Control-Allow-Methods', 'GET, OPTIONS');
+  // Helmet's same-origin default would stop other origins' viewers from showing the images.
+  res.set('Cross-Origin-Resource-Policy', 'cross-origin');
+  if (req.method === 'OPTIONS') {
+    res.status(NO_CONTENT).end();
+    return;
+  }
+  next();
+};
+
+/** Mounted at /iiif, before the client fallback. Archivists and volunteers, with the bearer token. */
+export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandler): Router {
+  const router = Router();
+  router.use(iiifCors, authenticate, requireRoles('archivist', 'volunteer'));
+
+  // §3 base URI: dereferencing it SHOULD give the info document, RECOMMENDED by a 303 (REFERENCES.md §7).
+  router.get('/3/:scanId', (req, res) => {
+    res.redirect(SEE_OTHER, IIIF.info(parseScanId(req.params.scanId)));
+  });
+  router.get('/3/:scanId/info.json', async (req, res) => {
+    const scanId = parseScanId(req.params.scanId);
+    const info = await iiifService.getInfoDocument(db, scanId, `${originOf(req)}${IIIF.imageBase(scanId)}`);
+    res.type(INFO_MEDIA_TYPE).set('Cache-Control', 'private, max-age=300').send(JSON.stringify(info));
+  });
+  router.get('/3/:scanId/manifest', async (req, res) => {
+    const manifest = await iiifService.getManifest(db, parseScanId(req.params.scanId), originOf(req));
+    res.type(PRESENTATION_MEDIA_TYPE).set('Cache-Control', 'private, no-cache').send(JSON.stringify(manifest));
+  });
+  router.get('/3/:scanId/:region/:size/:rotation/:qualityAndFormat', async (req, res) => {
+    const { region, size, rotation, qualityAndFormat } = req.params;
+    const image = await iiifService.getImageFile(db, storage, parseScanId(req.params.scanId), { region, size, rotation, qualityAndFormat });
+    // Pixels of a page never change under their URL (masters are never rewritten).
+    res.sendFile(image.filePath, { dotfiles: 'allow', headers: { 'Content-Type': image.contentType, 'Cache-Control': 'private, max-age=86400' } });
+  });
+  router.get('/collection/box/:collection/:box', async (req, res) => {
+    const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, originOf(req));
+    res.type(PRESENTATION_MEDIA_TYPE).set('Cache-Control', 'private, no-cache').send(JSON.stringify(collection));
+  });
+  return router;
+}

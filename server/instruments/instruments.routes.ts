@@ -1,0 +1,20 @@
+import { Router, type Response } from 'express';
+import { parseInstrumentPatch, type InstrumentSummary } from '@shared/api/instruments';
+import type { AppDeps } from '../app-deps';
+import { requireRoles } from '../auth/require-roles';
+import { parsePathId, valueOrThrow } from '../http/parse-body';
+import * as instrumentsService from './instruments.service';
+
+/** Mounted at /api/instruments behind authenticate (listing and creating live under /api/stations/:id/instruments). */
+export function instrumentsRoutes({ db }: AppDeps): Router {
+  const router = Router();
+  router.get('/:instrumentId', async (req, res: Response<InstrumentSummary>) => {
+    res.json(await instrumentsService.getInstrument(db, parsePathId(req.params.instrumentId, 'instrument_not_found', 'instrument')));
+  });
+  router.patch('/:instrumentId', requireRoles('archivist'), async (req, res: Response<InstrumentSummary>) => {
+    const instrumentId = parsePathId(req.params.instrumentId, 'instrument_not_found', 'instrument');
+    const patch = valueOrThrow(parseInstrumentPatch(req.body), 'The instrument has invalid fields.');
+    res.json(await instrumentsService.updateInstrument(db, instrumentId, patch));
+  });
+  return router;
+}

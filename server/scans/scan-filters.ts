@@ -1,0 +1,43 @@
+import type { ScanStatus } from '@shared/api/scans';
+import { sql, type ExpressionBuilder, type Expression, type SqlBool } from 'kysely';
+import type { Database } from '../db/database';
+
+/** Catalogue filters after parsing (times as Dates). */
+export interface ScanFilter {
+  status?: ScanStatus;
+  stationId?: string;
+  instrumentId?: string;
+  chartFormId?: string;
+  batchId?: string;
+  from?: Date;
+  to?: Date;
+  tags?: string[];
+  q?: string;
+}
+
+type ScanExpressions = ExpressionBuilder<Database, 'scan'>;
+
+/**
+ * The WHERE of a catalogue query. `from`/`to` keep charts whose span [span_start, span_end] (kept by the
+ * scan_span trigger) overlaps them; the range expression matches the GiST index scan_span_idx.
+ * `withStatus: false` leaves status out, for the counts per status.
+ */
+export function scanFilterWhere(filter: ScanFilter, options: { withStatus: boolean } = { withStatus: true }) {
+  return (eb: ScanExpressions): Expression<SqlBool> => {
+    const conditions: Expression<SqlBool>[] = [];
+    if (options.withStatus && filter.status) conditions.push(eb('scan.status', '=', filter.status));
+    if (filter.stationId) conditions.push(eb('scan.station_id', '=', filter.stationId));
+    if (filter.instrumentId) conditions.push(eb('scan.instrument_id', '=', filter.instrumentId));
+    if (filter.chartFormId) conditions.push(eb('scan.chart_form_id', '=', filter.chartFormId));
+    if (filter.batchId) conditions.push(eb('scan.batch_id', '=', filter.batchId));
+    if (filter.from || filter.to) {
+      conditions.push(eb('scan.span_start', 'is not', null));
+      conditions.push(
+        sql<SqlBool>`tstzrange(scan.span_start, scan.span_end, '[]') && tstzrange(${filter.from ?? null}::timestamptz, ${filter.to ?? null}::timestamptz, '[]')`,
+      );
+    }
+    if (filter.tags && filter.tags.length > 0) conditions.push(sql<SqlBool>`scan.tags @> ${sql.val(filter.tags)}::text[]`);
+    if (filter.q) conditions.push(sql<SqlBool>`scan.search @@ websearch_to_tsquery('simple', ${filter.q})`);
+    return eb.and(conditions);
+  };
+}
