@@ -45,7 +45,7 @@ export function intakeRoutes(deps: AppDeps): Router {
   const recordRefusedFile: ErrorRequestHandler = (err, req, _res, next) => {
     const known = knownError(err, config.maxUploadBytes);
     const id = req.params['batchId'];
-    if (!known || req.destroyed || typeof id !== 'string' || known.code === 'intake_batch_not_found') {
+    if (!known || req.readableAborted || req.socket.destroyed || typeof id !== 'string' || known.code === 'intake_batch_not_found') {
       next(err);
       return;
     }

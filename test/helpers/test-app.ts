@@ -139,3 +139,9 @@ export async function listFiles(folder: string): Promise<string[]> {
     throw error;
   }
 }
+
+/** Empties the test's storage folder (masters, previews, derivatives, temp files) and recreates its folders. */
+export async function clearStorage(storage: Storage): Promise<void> {
+  await fs.rm(storage.rootDir, { recursive: true, force: true });
+  await storage.ensureFolders();
+}
