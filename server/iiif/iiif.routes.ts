@@ -1,4 +1,4 @@
-import { Router, type Request, type RequestHandler } from 'express';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import { IIIF } from '@shared/api/routes';
 import type { AppDeps } from '../app-deps';
 import { requireRoles } from '../auth/require-roles';
@@ -13,6 +13,11 @@ const NO_CONTENT = 204;
 /** The scheme, host and port the caller used (Express trusts X-Forwarded-* only from loopback). */
 function originOf(req: Request): string {
   return `${req.protocol}://${req.get('host')}`;
+}
+
+/** Sends JSON-LD under its profiled media type; a Buffer body keeps Express from adding a charset inside it. */
+function sendJsonLd(res: Response, mediaType: string, document: unknown, cacheControl: string): void {
+  res.set({ 'Content-Type': mediaType, 'Cache-Control': cacheControl }).send(Buffer.from(JSON.stringify(document), 'utf8'));
 }
 
 /**
@@ -44,11 +49,11 @@ export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandle
   router.get('/3/:scanId/info.json', async (req, res) => {
     const scanId = parseScanId(req.params.scanId);
     const info = await iiifService.getInfoDocument(db, scanId, `${originOf(req)}${IIIF.imageBase(scanId)}`);
-    res.type(INFO_MEDIA_TYPE).set('Cache-Control', 'private, max-age=300').send(JSON.stringify(info));
+    sendJsonLd(res, INFO_MEDIA_TYPE, info, 'private, max-age=300');
   });
   router.get('/3/:scanId/manifest', async (req, res) => {
     const manifest = await iiifService.getManifest(db, parseScanId(req.params.scanId), originOf(req));
-    res.type(PRESENTATION_MEDIA_TYPE).set('Cache-Control', 'private, no-cache').send(JSON.stringify(manifest));
+    sendJsonLd(res, PRESENTATION_MEDIA_TYPE, manifest, 'private, no-cache');
   });
   router.get('/3/:scanId/:region/:size/:rotation/:qualityAndFormat', async (req, res) => {
     const { region, size, rotation, qualityAndFormat } = req.params;
@@ -58,7 +63,7 @@ export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandle
   });
   router.get('/collection/box/:collection/:box', async (req, res) => {
     const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, originOf(req));
-    res.type(PRESENTATION_MEDIA_TYPE).set('Cache-Control', 'private, no-cache').send(JSON.stringify(collection));
+    sendJsonLd(res, PRESENTATION_MEDIA_TYPE, collection, 'private, no-cache');
   });
   return router;
 }

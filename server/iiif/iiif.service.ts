@@ -93,7 +93,7 @@ export async function getImageFile(
     image = image.resize(request.width, request.height, { fit: 'fill' });
     if (request.isMirrored) image = image.flop();
     if (request.rotationDegrees !== 0) image = image.rotate(request.rotationDegrees);
-    if (request.quality === 'gray' || request.quality === 'bitonal') image = image.grayscale();
+    if (request.quality === 'gray' || request.quality === 'bitonal') image = image.grayscale().toColourspace('b-w');
     if (request.quality === 'bitonal') image = image.threshold(128);
     if (request.format === 'jpg') image = image.flatten({ background: '#ffffff' }).jpeg({ quality: 85 });
     else if (request.format === 'png') image = image.png();

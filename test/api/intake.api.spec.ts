@@ -9,6 +9,9 @@ import { makeGifBytes, makeJpeg, makePng, makeTruncatedPng } from '../helpers/im
 import { makeBombPng, makeEmptyPdf, makeEncryptedPdf, makeJpegWithDpi, makeMultiPageTiff, makeScannedPdf } from '../helpers/scan-files';
 import { clearStorage, createTestContext, listFiles, type TestContext, truncateTables } from '../helpers/test-app';
 
+// PDF pages are read in a child process and derivatives are made in the background: seconds, not milliseconds.
+jest.setTimeout(60_000);
+
 describe('intake batches', () => {
   let context: TestContext;
   let archivist: TestPerson;

@@ -1,0 +1,162 @@
+import fs from 'node:fs/promises';
+import path from 'node:path';
+import sharp from 'sharp';
+import request from 'supertest';
+import { API } from '@shared/api/routes';
+import type { ScanDetail } from '@shared/api/scans';
+import { pgBossDerivativeJobs } from '../../server/jobs/job-boss';
+import { createPerson, type TestPerson } from '../helpers/factories';
+import { makePng } from '../helpers/images';
+import { makeMultiPageTiff, makeScannedPdf } from '../helpers/scan-files';
+import { clearStorage, createTestContext, listFiles, type TestContext, truncateTables, waitForDerivatives } from '../helpers/test-app';
+
+// PDF pages are read in a child process and derivatives are made in the background: seconds, not milliseconds.
+jest.setTimeout(60_000);
+
+describe('scan derivatives worker', () => {
+  let context: TestContext;
+  let archivist: TestPerson;
+  let batchId: string;
+
+  async function sendFile(file: Buffer, fileName: string): Promise<string[]> {
+    const response = await request(context.app).post(API.intakeBatchFiles(batchId)).set('Authorization', `Bearer ${archivist.token}`).attach('file', file, fileName);
+    expect(response.status).toBe(201);
+    return response.body.scans.map((scan: { id: string }) => scan.id);
+  }
+
+  async function derivativeFiles(scanId: string): Promise<string[]> {
+    const row = await context.db.selectFrom('scan').select(['sha256', 'page_index']).where('id', '=', scanId).executeTakeFirstOrThrow();
+    return listFiles(context.storage.pathOf(context.storage.derivativesKey(row.sha256, row.page_index)));
+  }
+
+  beforeAll(async () => {
+    context = await createTestContext();
+    await context.startWorker();
+  });
+
+  beforeEach(async () => {
+    await truncateTables(context.db);
+    await clearStorage(context.storage);
+    archivist = await createPerson(context.db, ['archivist']);
+    batchId = (await request(context.app).post(API.intakeBatches).set('Authorization', `Bearer ${archivist.token}`).send({ label: 'derivatives' })).body.id;
+  });
+
+  afterAll(async () => {
+    await truncateTables(context.db);
+    await context.close();
+  });
+
+  it('when a PNG is stored, then the worker makes its thumbnail, preview and IIIF tiles and marks it ready', async () => {
+    const [scanId] = await sendFile(await makePng(1300, 700), 'wide.png');
+
+    const states = await waitForDerivatives(context.db, [scanId]);
+
+    expect(states[scanId]).toBe('ready');
+    const files = await derivativeFiles(scanId);
+    expect(files).toContain('thumbnail.jpg');
+    expect(files).toContain('tiles/info.json');
+    // 1300 × 700 at 512 px tiles: scale factors 1, 2, 4; the top level is the whole image at 325 × 175.
+    expect(files).toContain('tiles/0,0,512,512/512,512/0/default.jpg');
+    expect(files).toContain('tiles/full/325,175/0/default.jpg');
+    const thumbnail = await sharp(path.join(context.storage.pathOf(context.storage.derivativesKey((await scanRow(scanId)).sha256, 0)), 'thumbnail.jpg')).metadata();
+    expect([thumbnail.width, thumbnail.height]).toEqual([256, 138]);
+    const detail = (await request(context.app).get(API.scan(scanId)).set('Authorization', `Bearer ${archivist.token}`)).body as ScanDetail;
+    expect(detail).toMatchObject({ derivativeState: 'ready', derivativeAttempts: 1, derivativeError: null });
+  });
+
+  async function scanRow(scanId: string) {
+    return context.db.selectFrom('scan').selectAll().where('id', '=', scanId).executeTakeFirstOrThrow();
+  }
+
+  it('when a two-page PDF is stored, then each page gets its own raster and tiles at the page image size', async () => {
+    const scanIds = await sendFile(await makeScannedPdf(2, 150, 75, 150), 'two.pdf');
+
+    const states = await waitForDerivatives(context.db, scanIds);
+
+    expect(Object.values(states)).toEqual(['ready', 'ready']);
+    for (const scanId of scanIds) {
+      const files = await derivativeFiles(scanId);
+      expect(files).toEqual(expect.arrayContaining(['page.tif', 'thumbnail.jpg', 'tiles/info.json', 'tiles/full/150,75/0/default.jpg']));
+      const row = await scanRow(scanId);
+      const raster = await sharp(path.join(context.storage.pathOf(context.storage.derivativesKey(row.sha256, row.page_index)), 'page.tif')).metadata();
+      expect([raster.width, raster.height]).toEqual([150, 75]);
+    }
+  });
+
+  it('when a TIFF page is stored, then its raster holds that page and the master is unchanged', async () => {
+    const tiff = await makeMultiPageTiff(2, 200, 100);
+    const scanIds = await sendFile(tiff, 'pair.tif');
+
+    await waitForDerivatives(context.db, scanIds);
+
+    const second = await scanRow(scanIds[1]);
+    const rasterPath = path.join(context.storage.pathOf(context.storage.derivativesKey(second.sha256, 1)), 'page.tif');
+    const fromRaster = await sharp(rasterPath).raw().toBuffer();
+    const fromMaster = await sharp(tiff, { page: 1 }).raw().toBuffer();
+    expect(fromRaster.equals(fromMaster)).toBe(true);
+    expect((await fs.readFile(context.storage.pathOf(second.storage_key))).equals(tiff)).toBe(true);
+  });
+
+  it('when a job cannot read its master, then the scan ends failed with the reason after its retries, and retry queues it again', async () => {
+    // A job with no retries left at once, so the test does not wait through the production back-off.
+    const [scanId] = await sendFile(await makePng(), 'gone.png');
+    await waitForDerivatives(context.db, [scanId]);
+    const row = await scanRow(scanId);
+    await fs.rm(context.storage.pathOf(row.storage_key));
+    await context.db.updateTable('scan').set({ derivative_state: 'queued' }).where('id', '=', scanId).execute();
+    await context.boss.send('scan-derivatives', { scanId }, { retryLimit: 0 });
+
+    const states = await waitForDerivatives(context.db, [scanId]);
+    const failed = await scanRow(scanId);
+    const retried = await request(context.app).post(API.scanDerivativesRetry(scanId)).set('Authorization', `Bearer ${archivist.token}`);
+
+    expect(states[scanId]).toBe('failed');
+    expect(failed.derivative_error).toMatch(/missing|exist|no such file|input file/i);
+    expect(retried.status).toBe(200);
+    expect(retried.body.derivativeState).toBe('queued');
+  });
+
+  it('when derivatives are ready, then a retry is refused with 409', async () => {
+    const [scanId] = await sendFile(await makePng(), 'fine.png');
+    await waitForDerivatives(context.db, [scanId]);
+
+    const response = await request(context.app).post(API.scanDerivativesRetry(scanId)).set('Authorization', `Bearer ${archivist.token}`);
+
+    expect(response.status).toBe(409);
+    expect(response.body.error.code).toBe('conflict');
+  });
+
+  it('when a crash left a scan working with a half-written folder and no job, then a new worker requeues it and finishes', async () => {
+    // Stored without a job, as if the worker died after marking it working and the job was lost.
+    const [scanId] = await sendFile(await makePng(600, 300), 'crash.png');
+    await waitForDerivatives(context.db, [scanId]);
+    const row = await scanRow(scanId);
+    const folder = context.storage.pathOf(context.storage.derivativesKey(row.sha256, 0));
+    await fs.rm(folder, { recursive: true });
+    await fs.mkdir(path.join(context.storage.tempDir, 'half.derivatives', 'tiles'), { recursive: true });
+    await context.db.updateTable('scan').set({ derivative_state: 'working' }).where('id', '=', scanId).execute();
+    await context.db.deleteFrom('pgboss.job' as never).execute();
+
+    const second = await context.startWorker();
+    const states = await waitForDerivatives(context.db, [scanId]);
+    await second.stop();
+
+    expect(states[scanId]).toBe('ready');
+    expect(await listFiles(folder)).toContain('tiles/info.json');
+  });
+
+  it('when scans are enqueued in a transaction that rolls back, then no job is left', async () => {
+    const jobs = pgBossDerivativeJobs(context.boss);
+
+    await context.db
+      .transaction()
+      .execute(async (trx) => {
+        await jobs.enqueue(trx, ['00000000-0000-4000-8000-000000000001']);
+        throw new Error('roll back');
+      })
+      .catch(() => undefined);
+
+    const left = await context.db.selectFrom('pgboss.job' as never).selectAll().execute();
+    expect(left).toEqual([]);
+  });
+});
