@@ -1,5 +1,5 @@
 import type { Role } from '@shared/api/roles';
-import type { ScanStatus } from '@shared/api/scans';
+import type { DerivativeState, ScanStatus } from '@shared/api/scans';
 import type { SeriesFlag } from '@shared/api/series';
 import type { StationInput, StationSummary } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
@@ -78,10 +78,25 @@ export async function createChartForm(db: Db, overrides: Partial<ChartForm> = {}
   return chartFormsRepository.insertChartForm(db, { ...TEST_WEEKLY_FORM, name: `Test form ${nextNumber()}`, ...overrides });
 }
 
-/** A scan row without a stored file, for routes that never read the master (tracing, lists). */
+/** A scan row without a stored file, for routes that never read the master (tracing, lists, the catalogue). */
 export async function createScanRow(
   db: Db,
-  scan: { stationId: string; chartFormId: string; uploadedBy: string; periodStart: string; status?: ScanStatus },
+  scan: {
+    stationId: string | null;
+    chartFormId: string | null;
+    uploadedBy: string;
+    periodStart: string | null;
+    status?: ScanStatus;
+    chartOn?: string;
+    chartOff?: string;
+    instrumentId?: string;
+    batchId?: string;
+    tags?: string[];
+    observer?: string;
+    transcription?: string;
+    originalName?: string;
+    derivativeState?: DerivativeState;
+  },
 ): Promise<string> {
   const n = nextNumber();
   const { id } = await db
@@ -95,10 +110,18 @@ export async function createScanRow(
       height_px: 800,
       station_id: scan.stationId,
       chart_form_id: scan.chartFormId,
-      period_start: new Date(scan.periodStart),
+      period_start: scan.periodStart === null ? null : new Date(scan.periodStart),
       status: scan.status ?? 'ready_to_trace',
-      original_name: `scan-${n}.png`,
+      original_name: scan.originalName ?? `scan-${n}.png`,
       uploaded_by: scan.uploadedBy,
+      chart_on: scan.chartOn ? new Date(scan.chartOn) : null,
+      chart_off: scan.chartOff ? new Date(scan.chartOff) : null,
+      instrument_id: scan.instrumentId ?? null,
+      batch_id: scan.batchId ?? null,
+      tags: scan.tags ?? [],
+      observer: scan.observer ?? '',
+      transcription: scan.transcription ?? '',
+      derivative_state: scan.derivativeState ?? 'ready',
     })
     .returning('id')
     .executeTakeFirstOrThrow();
