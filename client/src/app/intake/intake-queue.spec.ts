@@ -10,8 +10,9 @@ import { INTAKE_CONCURRENCY, IntakeQueue } from './intake-queue';
 
 const FILES_URL = '/api/intake/batches/batch-1/files';
 
+/** A file whose bytes differ by name, so that two names never look like two copies of one scan. */
 function fileNamed(name: string, size = 10): File {
-  return new File(['x'.repeat(size)], name, { type: 'image/png' });
+  return new File([name.padEnd(size, '.').slice(0, size)], name, { type: 'image/png' });
 }
 
 function stored(fileName: string, scanIds: string[]): IntakeFileResult {
@@ -24,6 +25,11 @@ function fileNameOf(request: TestRequest): string {
 
 function settle(): Promise<void> {
   return new Promise((resolve) => setTimeout(resolve, 0));
+}
+
+/** Lets the queue read the files' lane keys (FileReader answers asynchronously). */
+async function settleMany(): Promise<void> {
+  for (let i = 0; i < 10; i++) await settle();
 }
 
 describe('IntakeQueue', () => {
@@ -44,10 +50,11 @@ describe('IntakeQueue', () => {
 
   afterEach(() => controller.verify());
 
-  it('when five files are queued, then only a few are sent at once and the next starts as one finishes', () => {
+  it('when five files are queued, then only a few are sent at once and the next starts as one finishes', async () => {
     const files = ['a.png', 'b.png', 'c.png', 'd.png', 'e.png'].map((name) => fileNamed(name));
 
     queue.run('batch-1', files).subscribe();
+    await settleMany();
     const first = openRequests();
     first[0].flush(stored('a.png', ['s-a']), { status: 201, statusText: 'Created' });
     const second = openRequests();
@@ -60,8 +67,9 @@ describe('IntakeQueue', () => {
     openRequests().forEach((request) => request.flush(stored(fileNameOf(request), ['s']), { status: 201, statusText: 'Created' }));
   });
 
-  it('when upload progress arrives, then that file’s bar and the whole batch move', () => {
+  it('when upload progress arrives, then that file’s bar and the whole batch move', async () => {
     queue.run('batch-1', [fileNamed('a.png', 100), fileNamed('b.png', 100)]).subscribe();
+    await settleMany();
     const [a, b] = openRequests();
 
     a.event({ type: HttpEventType.UploadProgress, loaded: 50, total: 100 });
@@ -76,6 +84,7 @@ describe('IntakeQueue', () => {
   it('when the server stores, finds a duplicate and rejects, then each file shows its own outcome and the run ends', async () => {
     let isDone = false;
     queue.run('batch-1', [fileNamed('week-1.tif'), fileNamed('week-1-again.tif'), fileNamed('notes.png')], { stationId: 'st-kro' }).subscribe(() => (isDone = true));
+    await settleMany();
     const [tiff, again, fake] = openRequests();
 
     tiff.flush(stored('week-1.tif', ['s-p1', 's-p2', 's-p3']), { status: 201, statusText: 'Created' });
@@ -100,9 +109,10 @@ describe('IntakeQueue', () => {
     expect(isDone).toBe(true);
   });
 
-  it('when the run is stopped, then requests in flight are aborted and waiting files are not sent', () => {
+  it('when the run is stopped, then requests in flight are aborted and waiting files are not sent', async () => {
     const files = ['a.png', 'b.png', 'c.png', 'd.png'].map((name) => fileNamed(name));
     queue.run('batch-1', files).subscribe();
+    await settleMany();
     const inFlight = openRequests();
 
     queue.cancel();
@@ -111,5 +121,20 @@ describe('IntakeQueue', () => {
     expect(openRequests()).toHaveLength(0);
     expect(queue.items().map((item) => item.state)).toEqual(['cancelled', 'cancelled', 'cancelled', 'cancelled']);
     expect(queue.isRunning()).toBe(false);
+  });
+
+  it('when two files have the same bytes, then the second is sent only after the first has its answer', async () => {
+    const original = new File(['the same scan bytes'], 'kro-w10.png', { type: 'image/png' });
+    const copy = new File(['the same scan bytes'], 'second-copy.png', { type: 'image/png' });
+
+    queue.run('batch-1', [original, copy, fileNamed('other.png')]).subscribe();
+    await settleMany();
+    const first = openRequests();
+    first.find((r) => fileNameOf(r) === 'kro-w10.png')!.flush(stored('kro-w10.png', ['s-1']), { status: 201, statusText: 'Created' });
+    const second = openRequests();
+
+    expect(first.map(fileNameOf)).toEqual(['kro-w10.png', 'other.png']);
+    expect(second.map(fileNameOf)).toEqual(['second-copy.png']);
+    for (const request of [first.find((r) => fileNameOf(r) === 'other.png')!, ...second]) request.flush(stored(fileNameOf(request), ['s']), { status: 201, statusText: 'Created' });
   });
 });

@@ -1,9 +1,10 @@
 import { HttpEventType } from '@angular/common/http';
 import { computed, DestroyRef, inject, Injectable, signal } from '@angular/core';
 import type { IntakeCounts, IntakeFileFields, IntakeFileResult } from '@shared/api/intake';
-import { from, mergeMap, Observable, Subscription, tap } from 'rxjs';
+import { concatMap, from, mergeMap, Observable, Subscription, switchMap, tap } from 'rxjs';
 
 import { ApiError } from '../core/http/api-error';
+import { fileLaneKey } from './file-lane-key';
 import { IntakeApi } from './intake-api';
 
 /** Files in flight at once: enough to keep the line busy, few enough that each bar moves visibly. */
@@ -56,6 +57,18 @@ function finishedOfResult(result: IntakeFileResult): Finished {
   };
 }
 
+/** Groups queued files by lane key, keeping the order of first appearance. */
+async function lanesOf<T extends { file: File }>(items: readonly T[]): Promise<T[][]> {
+  const keys = await Promise.all(items.map((item) => fileLaneKey(item.file)));
+  const lanes = new Map<string, T[]>();
+  items.forEach((item, i) => {
+    const lane = lanes.get(keys[i]);
+    if (lane) lane.push(item);
+    else lanes.set(keys[i], [item]);
+  });
+  return [...lanes.values()];
+}
+
 /**
  * The files of one intake run: sends them to a batch a few at a time, one request per file, and keeps each
  * file's progress and outcome in signals. Provided by the Intake page, so it ends with the page.
@@ -105,8 +118,12 @@ export class IntakeQueue {
     this.items.update((items) => [...items, ...added.map(({ file: _file, ...item }) => item)]);
     this.isRunning.set(true);
     return new Observable<void>((subscriber) => {
-      this.subscription = from(added)
-        .pipe(mergeMap((item) => this.send(batchId, item.key, item.file, fields), INTAKE_CONCURRENCY))
+      this.subscription = from(lanesOf(added))
+        .pipe(
+          // Lanes run a few at a time; the files of one lane (identical candidates) one after another.
+          switchMap((lanes) => from(lanes)),
+          mergeMap((lane) => from(lane).pipe(concatMap((item) => this.send(batchId, item.key, item.file, fields))), INTAKE_CONCURRENCY),
+        )
         .subscribe({
           complete: () => {
             this.isRunning.set(false);

@@ -14,11 +14,13 @@ import {
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatTooltipModule } from '@angular/material/tooltip';
-import { IIIF } from '@shared/api/routes';
 import type { ChartForm } from '@shared/domain/chart-form';
 import type OpenSeadragon from 'openseadragon';
+import { firstValueFrom } from 'rxjs';
 
+import { ScansApi } from '../../core/api/scans-api';
 import { AuthSession } from '../../core/auth/auth-session';
+import { ApiError } from '../../core/http/api-error';
 import { ChartGridDrawing } from '../../shared/chart-grid-drawing/chart-grid-drawing';
 import { gridPaths } from '../../shared/chart-grid-drawing/grid-paths';
 
@@ -67,6 +69,7 @@ export function gridSizePx(form: ChartForm, dpi: number): { widthPx: number; hei
 })
 export class DeepZoom {
   private readonly session = inject(AuthSession);
+  private readonly scansApi = inject(ScansApi);
 
   readonly scanId = input.required<string>();
   /** Form whose grid can be laid over the scan. */
@@ -130,13 +133,23 @@ export class DeepZoom {
       this.viewer?.destroy();
       this.viewer = null;
     });
-    const OSD = (await import('openseadragon')).default;
+    let info: Record<string, unknown>;
+    let OSD: typeof OpenSeadragon;
+    try {
+      // OpenSeadragon 5 sends ajaxHeaders with tiles but not with the info.json request of a URL tile
+      // source, so the info document comes through HttpClient (token, error mapping) and is handed over.
+      [info, OSD] = await Promise.all([firstValueFrom(this.scansApi.iiifInfo(this.scanId())), import('openseadragon').then((m) => m.default)]);
+    } catch (error: unknown) {
+      // Not a bug of ours to rethrow: the page shows why the image cannot open.
+      this.failure.set(error instanceof ApiError ? `The deep-zoom image could not be opened: ${error.message}` : 'The deep-zoom viewer could not be loaded.');
+      return;
+    }
     if (destroyed) return;
     this.osd = OSD;
     const token = this.session.token();
     const viewer = OSD({
       element: this.viewerHost().nativeElement,
-      tileSources: IIIF.info(this.scanId()),
+      tileSources: info,
       loadTilesWithAjax: true,
       ajaxHeaders: token ? { Authorization: `Bearer ${token}` } : {},
       // The canvas drawer reads back cleanly in tests and needs no GPU.

@@ -71,7 +71,7 @@ function orderValidator(group: AbstractControl): ValidationErrors | null {
     </mat-dialog-actions>
   `,
   styles: `
-    .fields { display: flex; flex-wrap: wrap; gap: 12px 8px; padding-top: 8px; }
+    .fields { display: flex; flex-wrap: wrap; gap: 12px 8px; align-items: flex-start; padding-top: 8px; }
     .half { flex: 1 1 calc(50% - 8px); min-width: 180px; }
     .full { flex: 1 1 100%; }
   `,

@@ -6,3 +6,24 @@ export function auditValueText(value: unknown): string {
   if (typeof value === 'number' || typeof value === 'boolean') return String(value);
   return JSON.stringify(value);
 }
+
+const FIELD_LABELS: Readonly<Record<string, string>> = {
+  stationId: 'station',
+  instrumentId: 'instrument',
+  chartFormId: 'chart form',
+  periodStart: 'period start',
+  chartOn: 'chart on',
+  chartOff: 'chart off',
+  conditionNotes: 'condition notes',
+  withdrawnReason: 'withdrawn because',
+  originalName: 'file name',
+  pageIndex: 'page (from 0)',
+  pageCount: 'pages',
+  batchId: 'intake batch',
+  dpi: 'dpi',
+};
+
+/** A ScanDetail field name as the audit trail shows it ("chartOn" → "chart on"). */
+export function auditFieldLabel(field: string): string {
+  return FIELD_LABELS[field] ?? field.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase();
+}

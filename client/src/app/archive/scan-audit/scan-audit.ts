@@ -7,7 +7,7 @@ import { catchError, combineLatest, map, of, switchMap } from 'rxjs';
 
 import { ScansApi } from '../../core/api/scans-api';
 import { ApiError } from '../../core/http/api-error';
-import { auditValueText } from './audit-value-text';
+import { auditFieldLabel, auditValueText } from './audit-value-text';
 
 interface AuditView {
   entries: ScanAuditEntry[];
@@ -36,7 +36,7 @@ const ACTION_LABELS: Record<ScanAuditEntry['action'], string> = { upload: 'uploa
             <table class="changes">
               @for (field of fieldsOf(entry); track field) {
                 <tr>
-                  <th scope="row">{{ field }}</th>
+                  <th scope="row">{{ fieldLabel(field) }}</th>
                   <td class="before">{{ text(entry.changes[field].before) }}</td>
                   <td class="arrow"><mat-icon>arrow_forward</mat-icon></td>
                   <td class="after">{{ text(entry.changes[field].after) }}</td>
@@ -74,6 +74,7 @@ export class ScanAudit {
 
   protected readonly actionLabels = ACTION_LABELS;
   protected readonly text = auditValueText;
+  protected readonly fieldLabel = auditFieldLabel;
   protected readonly view = toSignal(
     combineLatest([toObservable(this.scanId), toObservable(this.refresh)]).pipe(
       switchMap(([scanId]) =>

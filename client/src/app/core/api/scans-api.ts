@@ -69,6 +69,11 @@ export class ScansApi {
     return this.http.get(API.scanPreview(scanId), { responseType: 'blob' });
   }
 
+  /** The scan's IIIF Image API 3.0 info.json, fetched with the token (viewers then fetch tiles themselves). */
+  iiifInfo(scanId: string): Observable<Record<string, unknown>> {
+    return this.http.get<Record<string, unknown>>(IIIF.info(scanId));
+  }
+
   /** A IIIF image of the whole scan fitted inside `longestSidePx`, as a Blob (the token travels with it). */
   iiifImage(scanId: string, longestSidePx: number): Observable<Blob> {
     return this.http.get(IIIF.image(scanId, 'full', `!${longestSidePx},${longestSidePx}`), { responseType: 'blob' });
