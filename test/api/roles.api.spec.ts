@@ -2,9 +2,11 @@ import fs from 'node:fs/promises';
 import request from 'supertest';
 import type { Role } from '@shared/api/roles';
 import { ROLES } from '@shared/api/roles';
-import { API } from '@shared/api/routes';
+import { API, IIIF } from '@shared/api/routes';
+import * as instrumentsRepository from '../../server/instruments/instruments.repository';
+import * as intakeRepository from '../../server/intake/intake.repository';
 import * as scansService from '../../server/scans/scans.service';
-import { createChartForm, createPerson, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
+import { createChartForm, createPerson, createScanRow, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { makePng } from '../helpers/images';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 import { syntheticDraft } from '../helpers/trace';
@@ -26,12 +28,23 @@ describe('who may call each route', () => {
   let stationId: string;
   let chartFormId: string;
   let scanId: string;
+  let instrumentId: string;
+  let editableFormId: string;
+  let batchId: string;
+  let statusScanId: string;
+  let failedScanId: string;
+  let formNumber = 0;
 
   function withToken(call: request.Test, token: string | null): request.Test {
     return token === null ? call : call.set('Authorization', `Bearer ${token}`);
   }
 
-  async function count(table: 'scan' | 'ink_line'): Promise<number> {
+  async function versionOf(table: 'station' | 'instrument' | 'chart_form' | 'scan', id: string): Promise<number> {
+    const row = await context.db.selectFrom(table).select('version').where('id', '=', id).executeTakeFirstOrThrow();
+    return row.version;
+  }
+
+  async function count(table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch'): Promise<number> {
     const { total } = await context.db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow();
     return total;
   }
@@ -44,6 +57,126 @@ describe('who may call each route', () => {
       roles: ROLES,
       successStatus: 200,
       call: (token) => withToken(request(context.app).get(API.chartForms), token),
+    },
+    { name: 'GET /api/stations/:stationId', roles: ROLES, successStatus: 200, call: (token) => withToken(request(context.app).get(API.station(stationId)), token) },
+    {
+      name: 'POST /api/stations',
+      roles: ['archivist'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.stations), token).send({ code: 'NEW1', name: 'New Station', timeZone: 'UTC' }),
+      sideEffectCount: () => count('station'),
+    },
+    {
+      name: 'PATCH /api/stations/:stationId',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).patch(API.station(stationId)), token).send({ version: await versionOf('station', stationId), historyNotes: 'edited' }),
+    },
+    {
+      name: 'GET /api/stations/:stationId/instruments',
+      roles: ROLES,
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.stationInstruments(stationId)), token),
+    },
+    {
+      name: 'POST /api/stations/:stationId/instruments',
+      roles: ['archivist'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.stationInstruments(stationId)), token).send({ serial: 'R-1' }),
+      sideEffectCount: () => count('instrument'),
+    },
+    { name: 'GET /api/instruments/:instrumentId', roles: ROLES, successStatus: 200, call: (token) => withToken(request(context.app).get(API.instrument(instrumentId)), token) },
+    {
+      name: 'PATCH /api/instruments/:instrumentId',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).patch(API.instrument(instrumentId)), token).send({ version: await versionOf('instrument', instrumentId), notes: 'edited' }),
+    },
+    { name: 'GET /api/chart-forms/:chartFormId', roles: ROLES, successStatus: 200, call: (token) => withToken(request(context.app).get(API.chartForm(chartFormId)), token) },
+    {
+      name: 'POST /api/chart-forms',
+      roles: ['archivist'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.chartForms), token).send({ ...TEST_WEEKLY_FORM, name: `Role form ${++formNumber}` }),
+      sideEffectCount: () => count('chart_form'),
+    },
+    {
+      name: 'PATCH /api/chart-forms/:chartFormId',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).patch(API.chartForm(editableFormId)), token).send({ version: await versionOf('chart_form', editableFormId), gridHoursStep: 1 }),
+    },
+    {
+      name: 'POST /api/intake/batches',
+      roles: ['archivist'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.intakeBatches), token).send({ label: 'role batch' }),
+      sideEffectCount: () => count('intake_batch'),
+    },
+    { name: 'GET /api/intake/batches', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.intakeBatches), token) },
+    { name: 'GET /api/intake/batches/:batchId', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.intakeBatch(batchId)), token) },
+    {
+      name: 'POST /api/intake/batches/:batchId/files',
+      roles: ['archivist'],
+      successStatus: 201,
+      call: async (token) => withToken(request(context.app).post(API.intakeBatchFiles(batchId)), token).attach('file', await makePng(), 'intake.png'),
+      sideEffectCount: () => count('scan'),
+    },
+    {
+      name: 'POST /api/intake/batches/:batchId/inventory',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).post(API.intakeBatchInventory(batchId)), token).set('Content-Type', 'text/csv').send('file name,box\nintake.png,7\n'),
+    },
+    { name: 'GET /api/scans/status-counts', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.scanStatusCounts), token) },
+    {
+      name: 'PATCH /api/scans/:scanId',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).patch(API.scan(scanId)), token).send({ version: await versionOf('scan', scanId), conditionNotes: 'torn corner' }),
+    },
+    {
+      name: 'POST /api/scans/:scanId/status',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).post(API.scanStatus(statusScanId)), token).send({ status: 'withdrawn', reason: 'duplicate chart' }),
+    },
+    { name: 'GET /api/scans/:scanId/audit', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.scanAudit(scanId)), token) },
+    {
+      name: 'POST /api/scans/:scanId/derivatives/retry',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).post(API.scanDerivativesRetry(failedScanId)), token),
+    },
+    {
+      name: 'GET /iiif/3/:scanId',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 303,
+      call: (token) => withToken(request(context.app).get(IIIF.imageBase(scanId)).redirects(0), token),
+    },
+    {
+      name: 'GET /iiif/3/:scanId/info.json',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(IIIF.info(scanId)), token),
+    },
+    {
+      name: 'GET /iiif/3/:scanId/:region/:size/:rotation/:quality.:format',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(IIIF.image(scanId, 'full', '!100,100')), token),
+    },
+    {
+      name: 'GET /iiif/3/:scanId/manifest',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(IIIF.manifest(scanId)), token),
+    },
+    {
+      name: 'GET /iiif/collection/box/:collection/:box',
+      roles: ['archivist', 'volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(IIIF.boxCollection('ROLE', '1')), token),
     },
     {
       name: 'GET /api/scans',
@@ -109,6 +242,11 @@ describe('who may call each route', () => {
     chartFormId = (await createChartForm(context.db)).id;
     const tempPath = context.storage.newTempPath('.upload');
     await fs.writeFile(tempPath, await makePng(300, 200));
+    instrumentId = (await instrumentsRepository.insertInstrument(context.db, stationId, { serial: 'I-1', maker: '', installedOn: null, removedOn: null, notes: '' })).id;
+    editableFormId = (await createChartForm(context.db)).id;
+    batchId = (await intakeRepository.insertBatch(context.db, 'roles', people.archivist.id)) as string;
+    statusScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, periodStart: null, status: 'received' });
+    failedScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, periodStart: null, status: 'received', derivativeState: 'failed' });
     const scan = await scansService.uploadScan(
       context,
       { tempPath, originalName: 'role-table.png' },
@@ -116,6 +254,7 @@ describe('who may call each route', () => {
       people.archivist.id,
     );
     scanId = scan.id;
+    await context.db.updateTable('scan').set({ collection: 'ROLE', box: '1' }).where('id', '=', scanId).execute();
   });
 
   afterAll(async () => {
