@@ -1,8 +1,10 @@
 /**
  * `npm start`: the app with the invented demo scenario. Starts (or reuses) the local PostgreSQL cluster in
  * .data/postgres unless DATABASE_URL is set, migrates, seeds the demo once, builds the client when its
- * sources changed, and serves app and API from one process on 127.0.0.1. Ctrl-C stops both cleanly.
+ * sources changed, serves app and API from one process on 127.0.0.1, and runs the derivatives worker
+ * (server/jobs/worker-cli.ts) as a child process beside it. Ctrl-C stops all three cleanly.
  */
+import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
@@ -16,6 +18,30 @@ const ROOT = resolve(__dirname, '..');
 const DATA_DIR = join(ROOT, '.data');
 const POSTGRES_PORT = 54329;
 const APP_PORT = 4300;
+/** How long the worker may take to finish the job in hand after Ctrl-C. */
+const WORKER_STOP_MS = 30_000;
+
+/** Starts the derivatives worker with the server's variables; its output goes to this terminal. */
+function spawnWorker(env: NodeJS.ProcessEnv): ChildProcess {
+  const worker = spawn(process.execPath, ['--import', 'tsx', join(ROOT, 'server', 'jobs', 'worker-cli.ts')], { cwd: ROOT, env, stdio: 'inherit' });
+  worker.on('exit', (code, signal) => {
+    if (code !== 0 && signal === null) console.error(`The derivatives worker stopped (exit code ${code}); scans will wait in "queued" until the next start.`);
+  });
+  return worker;
+}
+
+/** Asks the worker to stop (SIGTERM) and waits for it, killing it after WORKER_STOP_MS. */
+function stopWorker(worker: ChildProcess | null): Promise<void> {
+  if (!worker || worker.exitCode !== null || worker.signalCode !== null) return Promise.resolve();
+  return new Promise((resolveStop) => {
+    const timer = setTimeout(() => worker.kill('SIGKILL'), WORKER_STOP_MS);
+    worker.once('exit', () => {
+      clearTimeout(timer);
+      resolveStop();
+    });
+    worker.kill('SIGTERM');
+  });
+}
 
 /** A signing secret kept in .data so that sign-ins survive a restart of the demo. */
 function readOrCreateJwtSecret(): string {
@@ -31,11 +57,13 @@ async function main(): Promise<void> {
   const userDatabaseUrl = process.env['DATABASE_URL'];
   const postgres = userDatabaseUrl ? null : new LocalPostgres(join(DATA_DIR, 'postgres'), POSTGRES_PORT);
   let server: RunningServer | null = null;
+  let worker: ChildProcess | null = null;
   let isStopping = false;
   const stop = async (code: number) => {
     if (isStopping) return;
     isStopping = true;
     console.log('\nStopping Isallo…');
+    await stopWorker(worker);
     await server?.close().catch((error: unknown) => console.error(error));
     await postgres?.stop();
     process.exit(code);
@@ -49,7 +77,7 @@ async function main(): Promise<void> {
       await postgres.ensureDatabase('isallo');
     }
     const clientDir = await ensureClientBuild(ROOT);
-    const config = loadConfig({
+    const env = {
       ...process.env,
       DATABASE_URL: userDatabaseUrl ?? postgres!.url('isallo'),
       JWT_SECRET: process.env['JWT_SECRET'] ?? readOrCreateJwtSecret(),
@@ -58,8 +86,11 @@ async function main(): Promise<void> {
       STORAGE_DIR: process.env['STORAGE_DIR'] ?? join(DATA_DIR, 'storage'),
       CLIENT_DIR: clientDir,
       LOG_LEVEL: process.env['LOG_LEVEL'] ?? 'warn',
-    });
+    };
+    const config = loadConfig(env);
+    // The server migrates and seeds (queuing the demo scans' derivative jobs) before the worker starts taking them.
     server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures') });
+    worker = spawnWorker(env);
   } catch (error) {
     console.error(error instanceof ConfigError || error instanceof Error ? error.message : error);
     await stop(1);
@@ -69,7 +100,8 @@ async function main(): Promise<void> {
   console.log(`\nIsallo is running at ${server.url}\n`);
   console.log(`Demo sign-ins (password "${DEMO_PASSWORD}" for each):`);
   for (const person of DEMO_PEOPLE) console.log(`  ${person.email.padEnd(28)} ${person.roles.join(', ')}`);
-  console.log('\nPress Ctrl-C to stop the server and the database.');
+  console.log('\nThe derivatives worker (thumbnails, previews, IIIF tiles) runs beside the server.');
+  console.log('Press Ctrl-C to stop the server, the worker and the database.');
 }
 
 void main();
