@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 /**
  * The archivist's day through the real UI: a folder of mixed files (PNG, JPEG, a three-page TIFF, a two-page
  * PDF, a text file renamed .png, a second copy of the PNG) and the box inventory go through Intake to a

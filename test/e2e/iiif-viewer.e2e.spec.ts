@@ -1,3 +1,4 @@
+/// <reference lib="dom" />
 /**
  * Interoperability: a general-purpose IIIF viewer from npm (OpenSeadragon 5) opens a scan's Image API 3.0
  * info.json, and the image service named in the scan's Presentation 3.0 manifest, in headless Chromium,
@@ -21,6 +22,24 @@ const ROOT = resolve(__dirname, '../..');
 const OPENSEADRAGON = join(ROOT, 'node_modules/openseadragon/build/openseadragon/openseadragon.min.js');
 
 jest.setTimeout(240_000);
+
+/** The parts of a Presentation 3.0 manifest this test reads. */
+interface ManifestSketch {
+  type: string;
+  metadata: { label: Record<string, string[]>; value: Record<string, string[]> }[];
+  items: {
+    type: string;
+    width: number;
+    height: number;
+    items: { items: { motivation: string; body: { service: ServiceSketch | ServiceSketch[] } }[] }[];
+  }[];
+}
+
+interface ServiceSketch {
+  id?: string;
+  '@id'?: string;
+  type: string;
+}
 
 interface ViewerReport {
   opened: boolean;
@@ -140,7 +159,7 @@ describe('a general-purpose IIIF viewer reads the archive', () => {
       body: JSON.stringify({ label: 'IIIF viewer check' }),
     });
     const form = new FormData();
-    form.append('file', new Blob([await ruledSheet()], { type: 'image/png' }), 'ruled-sheet.png');
+    form.append('file', new Blob([new Uint8Array(await ruledSheet())], { type: 'image/png' }), 'ruled-sheet.png');
     const sent = await api<IntakeFileResult>(server.url, `/api/intake/batches/${batch.body.id}/files`, { method: 'POST', token, body: form });
     if (sent.status !== 201) throw new Error(`upload answered ${sent.status}: ${JSON.stringify(sent.body)}`);
     const scanId = sent.body.scans[0].id;
@@ -190,7 +209,7 @@ describe('a general-purpose IIIF viewer reads the archive', () => {
     const tileRequests: string[] = [];
     const page = await blankPageWithViewer(tileRequests);
     const manifest = await page.evaluate(
-      async ({ path, token }) => (await fetch(path, { headers: { Authorization: `Bearer ${token}` } })).json(),
+      async ({ path, token }) => (await (await fetch(path, { headers: { Authorization: `Bearer ${token}` } })).json()) as ManifestSketch,
       { path: `/iiif/3/${scan.id}/manifest`, token },
     );
     const canvas = manifest.items[0];
@@ -205,7 +224,7 @@ describe('a general-purpose IIIF viewer reads the archive', () => {
     expect([canvas.width, canvas.height]).toEqual([scan.widthPx, scan.heightPx]);
     expect(canvas.items[0].items[0].motivation).toBe('painting');
     expect(service.type).toBe('ImageService3');
-    expect(manifest.metadata.some((pair: { label: Record<string, string[]> }) => pair.label['en']?.[0] === 'File name')).toBe(true);
+    expect(manifest.metadata.some((pair) => pair.label['en']?.[0] === 'File name')).toBe(true);
     expect(report.failure).toBeNull();
     expect(report.tilesDrawn).toBeGreaterThan(0);
     expect(tileRequests.length).toBeGreaterThan(0);

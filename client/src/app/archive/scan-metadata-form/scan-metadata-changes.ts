@@ -18,6 +18,7 @@ export interface ScanMetadataValues {
   dpi: string;
   tags: string;
   conditionNotes: string;
+  notes: string;
   transcription: string;
 }
 
@@ -42,6 +43,7 @@ export function valuesOfScan(scan: ScanDetail): ScanMetadataValues {
     dpi: scan.dpi === null ? '' : String(scan.dpi),
     tags: scan.tags.join(', '),
     conditionNotes: scan.conditionNotes,
+    notes: scan.notes,
     transcription: scan.transcription,
   };
 }
@@ -70,7 +72,7 @@ export function scanMetadataChanges(scan: ScanDetail, values: ScanMetadataValues
   if (values.periodStart.trim() !== before.periodStart) input.periodStart = instantOrNull(values.periodStart);
   if (values.chartOn.trim() !== before.chartOn) input.chartOn = instantOrNull(values.chartOn);
   if (values.chartOff.trim() !== before.chartOff) input.chartOff = instantOrNull(values.chartOff);
-  for (const key of ['observer', 'collection', 'box', 'folder', 'item', 'conditionNotes', 'transcription'] as const) {
+  for (const key of ['observer', 'collection', 'box', 'folder', 'item', 'conditionNotes', 'notes', 'transcription'] as const) {
     if (values[key] !== before[key]) input[key] = values[key];
   }
   if (values.dpi.trim() !== before.dpi) input.dpi = values.dpi.trim() === '' ? null : Number(values.dpi);

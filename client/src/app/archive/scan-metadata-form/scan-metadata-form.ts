@@ -66,6 +66,7 @@ export class ScanMetadataForm {
     dpi: ['', dpiValidator],
     tags: [''],
     conditionNotes: [''],
+    notes: [''],
     transcription: [''],
   });
   protected readonly instruments = toSignal(

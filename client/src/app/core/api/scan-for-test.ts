@@ -40,6 +40,7 @@ export function scanDetailForTest(overrides: Partial<ScanDetail> = {}): ScanDeta
     folder: '',
     item: '',
     conditionNotes: '',
+    notes: '',
     transcription: '',
     withdrawnReason: null,
     dpi: 150,
