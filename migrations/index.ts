@@ -15,6 +15,7 @@ import * as createIntakeBatch from './2026_12_02_0430_create_intake_batch';
 import * as createIntakeFile from './2026_12_02_0440_create_intake_file';
 import * as extendScan from './2026_12_02_0450_extend_scan';
 import * as createScanAudit from './2026_12_02_0460_create_scan_audit';
+import * as addScanSortIndexes from './2026_12_02_0470_add_scan_sort_indexes';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -38,4 +39,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_02_0440_create_intake_file': createIntakeFile,
   '2026_12_02_0450_extend_scan': extendScan,
   '2026_12_02_0460_create_scan_audit': createScanAudit,
+  '2026_12_02_0470_add_scan_sort_indexes': addScanSortIndexes,
 };

@@ -1,0 +1,193 @@
+/**
+ * `npm run bench:catalogue`: loads 100 000 generated scans (invented stations and names) into a throwaway
+ * PostgreSQL, then times catalogue pages for several filter mixes: the server time of the service call
+ * (median of repeated warm calls) and PostgreSQL's EXPLAIN ANALYZE execution time of its queries.
+ * Bar: a filtered catalogue page under 50 ms of server time. `-- --scans N` loads N instead.
+ */
+import { mkdtempSync, rmSync, chmodSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { CompiledQuery, sql, type Compilable } from 'kysely';
+import type { PageQuery } from '@shared/api/paging';
+import type { ScanSortKey } from '@shared/api/scans';
+import { createDb } from '../server/db/create-db';
+import type { Db } from '../server/db/database';
+import { migrateToLatest } from '../server/db/migrate';
+import type { ScanFilter } from '../server/scans/scan-filters';
+import { buildCatalogueQueries, buildStatusCountQuery } from '../server/scans/scans.repository';
+import * as scansService from '../server/scans/scans.service';
+import { findFreePort } from './lib/free-port';
+import { LocalPostgres } from './lib/local-postgres';
+
+const BAR_MS = 50;
+const RUNS = 15;
+const WARM_UPS = 3;
+const TAGS = ['gale', 'faint ink', 'torn', 'clock stopped', 'thunder', 'snow', 'pen skipped', 'double line', 'water stain', 'reset'];
+
+function argValue(name: string, fallback: number): number {
+  const index = process.argv.indexOf(name);
+  return index >= 0 ? Number(process.argv[index + 1]) : fallback;
+}
+
+/** Stations, forms, instruments, batches and `scanCount` scans, generated in SQL (invented names). */
+async function loadScans(db: Db, scanCount: number): Promise<{ stationIds: string[]; instrumentIds: string[]; batchIds: string[]; chartFormIds: string[] }> {
+  const { id: personId } = await db
+    .insertInto('person')
+    .values({ email: 'bench@isallo.test', display_name: 'Bench Archivist', password_hash: 'x' } as never)
+    .returning('id')
+    .executeTakeFirstOrThrow();
+  await sql`
+    insert into station (code, name, time_zone, time_standard)
+    select 'B' || n, 'Bench Station ' || n, 'Europe/London', case when n % 2 = 0 then 'utc' else 'local_standard' end
+    from generate_series(1, 40) n`.execute(db);
+  await sql`
+    insert into chart_form (name, pressure_unit, pressure_min, pressure_max, drum_hours, mm_per_hour, mm_per_unit, pen_arm_radius_mm,
+                            grid_pressure_step, label_pressure_step, grid_hours_step, label_hours_step)
+    values ('Bench weekly', 'hPa', 950, 1050, 168, 1.5, 0.9, 150, 1, 10, 2, 24),
+           ('Bench daily', 'hPa', 950, 1050, 26, 8, 0.9, 150, 1, 10, 0.25, 2),
+           ('Bench weekly inHg', 'inHg', 28, 31, 168, 1.5, 30, 150, 0.05, 0.5, 2, 24)`.execute(db);
+  await sql`insert into instrument (station_id, serial) select s.id, 'BI-' || s.code || '-' || k from station s, generate_series(1, 3) k`.execute(db);
+  await sql`insert into intake_batch (created_by, label) select ${personId}, 'Bench box ' || n from generate_series(1, 200) n`.execute(db);
+  // One scan per row; every 7th has no period (only chart on/off as written), every 50th nothing at all.
+  await sql`
+    with params as (
+      select n,
+        (array(select id from station order by code))[1 + n % 40] as station_id,
+        (array(select id from chart_form order by name))[1 + n % 3] as chart_form_id,
+        (array(select id from intake_batch order by label))[1 + n % 200] as batch_id,
+        timestamptz '1890-01-06 08:00Z' + make_interval(days => (n * 7) % 36500, hours => n % 5) as start_at
+      from generate_series(1, ${scanCount}) n
+    )
+    insert into scan (sha256, storage_key, media_type, size_bytes, width_px, height_px, station_id, chart_form_id, period_start,
+                      chart_on, chart_off, status, original_name, uploaded_by, batch_id, instrument_id, observer, box, folder, tags,
+                      transcription, derivative_state)
+    select lpad(to_hex(n), 64, '0'), 'masters/00/' || n || '.tif', 'image/tiff', 40000000, 7000, 2600,
+      case when n % 50 = 0 then null else station_id end,
+      case when n % 50 = 0 then null else chart_form_id end,
+      case when n % 7 = 0 or n % 50 = 0 then null else start_at end,
+      case when n % 50 = 0 then null else start_at + interval '10 minutes' end,
+      case when n % 7 = 0 then start_at + interval '7 days' else null end,
+      (array['received', 'ready_to_trace', 'ready_to_trace', 'traced', 'traced', 'approved', 'approved', 'approved', 'withdrawn'])[1 + n % 9],
+      'box' || (n % 200) || '-chart-' || n || '.tif', ${personId}, batch_id,
+      case when n % 4 = 0 then (select i.id from instrument i where i.station_id = params.station_id order by i.serial limit 1) else null end,
+      (array['A. Quillfeather', 'J. Penhallow', 'M. Ostrander', 'T. Vell', ''])[1 + n % 5],
+      (n % 200)::text, (n % 12)::text,
+      array[(${sql.val(TAGS)}::text[])[1 + n % 10], (${sql.val(TAGS)}::text[])[1 + (n / 10) % 10]],
+      case when n % 3 = 0 then 'Clock wound ' || (array['Monday', 'Tuesday', 'at noon', 'late'])[1 + n % 4] || '; pen refilled' else '' end,
+      'ready'
+    from params`.execute(db);
+  await sql`analyze`.execute(db);
+  const ids = async (table: 'station' | 'instrument' | 'intake_batch' | 'chart_form') =>
+    (await db.selectFrom(table).select('id').orderBy('id').execute()).map((row) => row.id);
+  // Instruments in use, most scans first (a quarter of the scans name one).
+  const instrumentIds = (
+    await db.selectFrom('scan').select('instrument_id').where('instrument_id', 'is not', null).groupBy('instrument_id').orderBy(sql`count(*)`, 'desc').execute()
+  ).map((row) => row.instrument_id as string);
+  return { stationIds: await ids('station'), instrumentIds, batchIds: await ids('intake_batch'), chartFormIds: await ids('chart_form') };
+}
+
+async function explainMs(db: Db, query: Compilable): Promise<number> {
+  const compiled = query.compile();
+  const result = await db.executeQuery<{ 'QUERY PLAN': { 'Execution Time': number }[] }>(
+    CompiledQuery.raw(`explain (analyze, format json) ${compiled.sql}`, [...compiled.parameters]),
+  );
+  return result.rows[0]['QUERY PLAN'][0]['Execution Time'];
+}
+
+function median(values: number[]): number {
+  const sorted = [...values].sort((a, b) => a - b);
+  return sorted[Math.floor(sorted.length / 2)];
+}
+
+async function timeMs(run: () => Promise<unknown>): Promise<number> {
+  for (let i = 0; i < WARM_UPS; i++) await run();
+  const times: number[] = [];
+  for (let i = 0; i < RUNS; i++) {
+    const started = process.hrtime.bigint();
+    await run();
+    times.push(Number(process.hrtime.bigint() - started) / 1e6);
+  }
+  return median(times);
+}
+
+interface Mix {
+  name: string;
+  filter: ScanFilter;
+  query?: Partial<PageQuery<ScanSortKey>>;
+  isCounts?: boolean;
+}
+
+async function main(): Promise<void> {
+  const scanCount = argValue('--scans', 100_000);
+  const workDir = mkdtempSync(join(tmpdir(), 'isallo-bench-catalogue-'));
+  chmodSync(workDir, 0o755);
+  const postgres = new LocalPostgres(join(workDir, 'pg'), await findFreePort());
+  let db: Db | undefined;
+  try {
+    await postgres.start();
+    await postgres.ensureDatabase('bench');
+    db = createDb(postgres.url('bench'), 4);
+    await migrateToLatest(db);
+    const loadStarted = Date.now();
+    const ids = await loadScans(db, scanCount);
+    console.log(`Loaded ${scanCount} scans in ${((Date.now() - loadStarted) / 1000).toFixed(1)} s.\n`);
+
+    const year = (y: number) => ({ from: new Date(Date.UTC(y, 0, 1)), to: new Date(Date.UTC(y, 11, 31, 23, 59)) });
+    const mixes: Mix[] = [
+      { name: 'no filter, by period', filter: {} },
+      { name: 'station', filter: { stationId: ids.stationIds[3] } },
+      { name: 'status traced', filter: { status: 'traced' } },
+      { name: 'station + one year', filter: { stationId: ids.stationIds[5], ...year(1931) } },
+      { name: 'one month (span overlap)', filter: { from: new Date(Date.UTC(1931, 2, 1)), to: new Date(Date.UTC(1931, 2, 31)) } },
+      { name: 'tag', filter: { tags: ['clock stopped'] } },
+      { name: 'two tags', filter: { tags: ['gale', 'torn'] } },
+      { name: 'free text', filter: { q: 'wound tuesday' } },
+      { name: 'station + status + tag + text', filter: { stationId: ids.stationIds[7], status: 'approved', tags: ['snow'], q: 'refilled' } },
+      { name: 'instrument', filter: { instrumentId: ids.instrumentIds[0] } },
+      { name: 'chart form + status, by station name', filter: { chartFormId: ids.chartFormIds[1], status: 'ready_to_trace' }, query: { sort: 'stationName' } },
+      { name: 'batch', filter: { batchId: ids.batchIds[10] } },
+      { name: 'no filter, newest period first', filter: {}, query: { direction: 'desc' } },
+      { name: 'status, page 40', filter: { status: 'approved' }, query: { page: 40 } },
+      { name: 'status counts, no filter', filter: {}, isCounts: true },
+      { name: 'status counts, station + year', filter: { stationId: ids.stationIds[2], ...year(1950) }, isCounts: true },
+    ];
+
+    const rows: string[][] = [];
+    for (const mix of mixes) {
+      const query: PageQuery<ScanSortKey> = { page: 0, pageSize: 25, sort: 'periodStart', direction: 'asc', ...mix.query };
+      let serverMs: number;
+      let explainedMs: number;
+      let total: number;
+      if (mix.isCounts) {
+        serverMs = await timeMs(() => scansService.countScansByStatus(db!, mix.filter));
+        explainedMs = await explainMs(db, buildStatusCountQuery(db, mix.filter));
+        total = Object.values(await scansService.countScansByStatus(db, mix.filter)).reduce((a, b) => a + b, 0);
+      } else {
+        serverMs = await timeMs(() => scansService.listScans(db!, mix.filter, query));
+        const { ids: rowsQuery, count } = buildCatalogueQueries(db, mix.filter, query);
+        explainedMs = (await explainMs(db, rowsQuery)) + (await explainMs(db, count));
+        total = (await scansService.listScans(db, mix.filter, query)).total;
+      }
+      rows.push([mix.name, String(total), serverMs.toFixed(1), explainedMs.toFixed(1), serverMs < BAR_MS ? 'yes' : 'NO']);
+    }
+    const header = ['filter mix', 'matches', 'server ms (median)', 'EXPLAIN ANALYZE ms', `< ${BAR_MS} ms`];
+    const widths = header.map((title, i) => Math.max(title.length, ...rows.map((row) => row[i].length)));
+    const line = (cells: string[]) => cells.map((cell, i) => (i === 0 ? cell.padEnd(widths[i]) : cell.padStart(widths[i]))).join('  ');
+    console.log(line(header));
+    console.log(widths.map((width) => '-'.repeat(width)).join('  '));
+    for (const row of rows) console.log(line(row));
+    console.log(`\n${scanCount} scans; page size 25; server time = the service call (${RUNS} warm runs, median), EXPLAIN ANALYZE = page-ids query + count query.`);
+    const worst = Math.max(...rows.map((row) => Number(row[2])));
+    console.log(worst < BAR_MS ? `All mixes under the ${BAR_MS} ms bar (slowest ${worst.toFixed(1)} ms).` : `Slowest mix ${worst.toFixed(1)} ms: over the ${BAR_MS} ms bar.`);
+    process.exitCode = worst < BAR_MS ? 0 : 1;
+  } finally {
+    await db?.destroy();
+    await postgres.stop();
+    rmSync(workDir, { recursive: true, force: true });
+  }
+}
+
+main().catch((error: unknown) => {
+  console.error(error instanceof Error ? error.stack : error);
+  process.exit(1);
+});
