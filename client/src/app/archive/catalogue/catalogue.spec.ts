@@ -13,7 +13,8 @@ import { scanSummaryForTest } from '../../core/api/scan-for-test';
 import { Catalogue } from './catalogue';
 
 function scan(index: number): ScanSummary {
-  return scanSummaryForTest({ id: `scan-${index}`, originalName: `kro-week-${index}.png` });
+  // Tiles not made yet, so the rows ask for no thumbnails.
+  return scanSummaryForTest({ id: `scan-${index}`, originalName: `kro-week-${index}.png`, derivativeState: 'queued' });
 }
 
 function pageOf(count: number, total: number, page: number): Page<ScanSummary> {

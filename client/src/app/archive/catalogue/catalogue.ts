@@ -15,6 +15,7 @@ import { catchError, combineLatest, map, of, scan, startWith, switchMap } from '
 import { ScansApi } from '../../core/api/scans-api';
 import { ApiError } from '../../core/http/api-error';
 import { ScanStatusChip } from '../../shared/scan-status-chip/scan-status-chip';
+import { ScanThumbnail } from '../../shared/scan-thumbnail/scan-thumbnail';
 
 interface CatalogueView {
   page: Page<ScanSummary> | null;
@@ -27,7 +28,7 @@ const DERIVATIVE_ICONS: Readonly<Record<string, string>> = { queued: 'schedule',
 /** Scans of the archive in a table, paged, sorted and filtered by the server. */
 @Component({
   selector: 'isl-catalogue',
-  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatIconModule, MatTooltipModule, ScanStatusChip],
+  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatIconModule, MatTooltipModule, ScanStatusChip, ScanThumbnail],
   templateUrl: './catalogue.html',
   styleUrl: './catalogue.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -39,7 +40,7 @@ export class Catalogue {
   /** Page and sort; two-way so the page can keep them in the address. */
   readonly query = model<PageQuery<ScanSortKey>>({ page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'uploadedAt', direction: 'desc' });
 
-  protected readonly columns = ['periodStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
+  protected readonly columns = ['thumbnail', 'periodStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
   protected readonly derivativeIcons = DERIVATIVE_ICONS;
   private readonly reloads = signal(0);
 

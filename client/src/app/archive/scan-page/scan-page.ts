@@ -8,6 +8,7 @@ import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import { MatTabsModule } from '@angular/material/tabs';
 import { RouterLink } from '@angular/router';
 import type { ChartFormSummary } from '@shared/api/chart-forms';
+import { IIIF } from '@shared/api/routes';
 import type { ScanDetail } from '@shared/api/scans';
 import { catchError, combineLatest, distinctUntilChanged, EMPTY, map, of, switchMap, timer } from 'rxjs';
 
@@ -94,6 +95,9 @@ export class ScanPage {
     ),
     { initialValue: null as ChartFormSummary | null },
   );
+  /** The archive's own address, so the manifest URL can be copied into another IIIF viewer. */
+  protected readonly iiifBase = signal(typeof location === 'undefined' ? '' : location.origin);
+  protected readonly manifestPath = IIIF.manifest;
   protected readonly pageLabel = computed(() => {
     const scan = this.scan();
     return scan && scan.pageCount > 1 ? `page ${scan.pageIndex + 1} of ${scan.pageCount}` : null;

@@ -60,8 +60,17 @@ describe('ScanStatusActions', () => {
     expect(request.request.body).toEqual({ status: 'withdrawn', reason: 'second copy of box 14 item 3' });
   });
 
+  it('when fields are missing, then Ready to trace waits and says what it needs', async () => {
+    const { fixture, loader } = await open(scanDetailForTest({ status: 'received', periodStart: null }));
+
+    const ready = await loader.getHarness(MatButtonHarness.with({ text: /Ready to trace/ }));
+
+    expect(await ready.isDisabled()).toBe(true);
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain('it needs: period start');
+  });
+
   it('when the server refuses ready to trace, then the missing fields it names are shown', async () => {
-    const { fixture, loader } = await open(scanDetailForTest({ status: 'received', stationId: null }));
+    const { fixture, loader } = await open(scanDetailForTest({ status: 'received' }));
 
     await (await loader.getHarness(MatButtonHarness.with({ text: /Ready to trace/ }))).click();
     controller

@@ -41,7 +41,7 @@ export function missingForTracing(scan: ScanDetail): string[] {
           @if (missing().length > 0) {
             <p class="isl-muted">Before it can be traced it needs: {{ missing().join(', ') }}.</p>
           }
-          <button mat-flat-button type="button" [disabled]="isBusy()" (click)="change({ status: 'ready_to_trace' })" data-testid="status-ready"><mat-icon>task_alt</mat-icon> Ready to trace</button>
+          <button mat-flat-button type="button" [disabled]="isBusy() || missing().length > 0" (click)="change({ status: 'ready_to_trace' })" data-testid="status-ready"><mat-icon>task_alt</mat-icon> Ready to trace</button>
         }
         @if (scan().status === 'ready_to_trace') {
           <button mat-stroked-button type="button" [disabled]="isBusy()" (click)="change({ status: 'received' })" data-testid="status-back"><mat-icon>undo</mat-icon> Back to received</button>
