@@ -16,6 +16,8 @@ import * as createIntakeFile from './2026_12_02_0440_create_intake_file';
 import * as extendScan from './2026_12_02_0450_extend_scan';
 import * as createScanAudit from './2026_12_02_0460_create_scan_audit';
 import * as addScanSortIndexes from './2026_12_02_0470_add_scan_sort_indexes';
+import * as addScanSpanBtree from './2026_12_02_0480_add_scan_span_btree';
+import * as indexScanSpanLength from './2026_12_02_0490_index_scan_span_length';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -40,4 +42,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_02_0450_extend_scan': extendScan,
   '2026_12_02_0460_create_scan_audit': createScanAudit,
   '2026_12_02_0470_add_scan_sort_indexes': addScanSortIndexes,
+  '2026_12_02_0480_add_scan_span_btree': addScanSpanBtree,
+  '2026_12_02_0490_index_scan_span_length': indexScanSpanLength,
 };

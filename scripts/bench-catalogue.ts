@@ -14,7 +14,7 @@ import { createDb } from '../server/db/create-db';
 import type { Db } from '../server/db/database';
 import { migrateToLatest } from '../server/db/migrate';
 import type { ScanFilter } from '../server/scans/scan-filters';
-import { buildCatalogueQueries, buildStatusCountQuery } from '../server/scans/scans.repository';
+import { buildCatalogueQueries, buildStatusCountQuery, withLongestSpan } from '../server/scans/scans.repository';
 import * as scansService from '../server/scans/scans.service';
 import { findFreePort } from './lib/free-port';
 import { LocalPostgres } from './lib/local-postgres';
@@ -30,7 +30,7 @@ function argValue(name: string, fallback: number): number {
 }
 
 /** Stations, forms, instruments, batches and `scanCount` scans, generated in SQL (invented names). */
-async function loadScans(db: Db, scanCount: number): Promise<{ stationIds: string[]; instrumentIds: string[]; batchIds: string[]; chartFormIds: string[] }> {
+export async function loadScans(db: Db, scanCount: number): Promise<{ stationIds: string[]; instrumentIds: string[]; batchIds: string[]; chartFormIds: string[] }> {
   const { id: personId } = await db
     .insertInto('person')
     .values({ email: 'bench@isallo.test', display_name: 'Bench Archivist', password_hash: 'x' } as never)
@@ -76,14 +76,23 @@ async function loadScans(db: Db, scanCount: number): Promise<{ stationIds: strin
       case when n % 3 = 0 then 'Clock wound ' || (array['Monday', 'Tuesday', 'at noon', 'late'])[1 + n % 4] || '; pen refilled' else '' end,
       'ready'
     from params`.execute(db);
-  await sql`analyze`.execute(db);
+  // What autovacuum would have done by the time anyone browses: statistics, and the visibility map for index-only scans.
+  await sql`vacuum analyze`.execute(db);
   const ids = async (table: 'station' | 'instrument' | 'intake_batch' | 'chart_form') =>
     (await db.selectFrom(table).select('id').orderBy('id').execute()).map((row) => row.id);
   // Instruments in use, most scans first (a quarter of the scans name one).
   const instrumentIds = (
     await db.selectFrom('scan').select('instrument_id').where('instrument_id', 'is not', null).groupBy('instrument_id').orderBy(sql`count(*)`, 'desc').execute()
   ).map((row) => row.instrument_id as string);
-  return { stationIds: await ids('station'), instrumentIds, batchIds: await ids('intake_batch'), chartFormIds: await ids('chart_form') };
+  const chartFormIds = (await db.selectFrom('chart_form').select('id').orderBy('name').execute()).map((row) => row.id);
+  return { stationIds: await ids('station'), instrumentIds, batchIds: await ids('intake_batch'), chartFormIds };
+}
+
+/** PostgreSQL's plan of a query, as text, for mixes over the bar. */
+async function explainText(db: Db, query: Compilable): Promise<string> {
+  const compiled = query.compile();
+  const result = await db.executeQuery<{ 'QUERY PLAN': string }>(CompiledQuery.raw(`explain (analyze) ${compiled.sql}`, [...compiled.parameters]));
+  return result.rows.map((row) => row['QUERY PLAN']).join('\n');
 }
 
 async function explainMs(db: Db, query: Compilable): Promise<number> {
@@ -139,12 +148,14 @@ async function main(): Promise<void> {
       { name: 'status traced', filter: { status: 'traced' } },
       { name: 'station + one year', filter: { stationId: ids.stationIds[5], ...year(1931) } },
       { name: 'one month (span overlap)', filter: { from: new Date(Date.UTC(1931, 2, 1)), to: new Date(Date.UTC(1931, 2, 31)) } },
+      { name: 'one month, late in the order', filter: { from: new Date(Date.UTC(1975, 2, 1)), to: new Date(Date.UTC(1975, 2, 31)) } },
+      { name: 'sixty years', filter: { from: new Date(Date.UTC(1901, 0, 1)), to: new Date(Date.UTC(1961, 0, 1)) } },
       { name: 'tag', filter: { tags: ['clock stopped'] } },
       { name: 'two tags', filter: { tags: ['gale', 'torn'] } },
       { name: 'free text', filter: { q: 'wound tuesday' } },
       { name: 'station + status + tag + text', filter: { stationId: ids.stationIds[7], status: 'approved', tags: ['snow'], q: 'refilled' } },
       { name: 'instrument', filter: { instrumentId: ids.instrumentIds[0] } },
-      { name: 'chart form + status, by station name', filter: { chartFormId: ids.chartFormIds[1], status: 'ready_to_trace' }, query: { sort: 'stationName' } },
+      { name: 'chart form + status, by station name', filter: { chartFormId: ids.chartFormIds[0], status: 'approved' }, query: { sort: 'stationName' } },
       { name: 'batch', filter: { batchId: ids.batchIds[10] } },
       { name: 'no filter, newest period first', filter: {}, query: { direction: 'desc' } },
       { name: 'status, page 40', filter: { status: 'approved' }, query: { page: 40 } },
@@ -153,22 +164,28 @@ async function main(): Promise<void> {
     ];
 
     const rows: string[][] = [];
+    const plans: string[] = [];
     for (const mix of mixes) {
       const query: PageQuery<ScanSortKey> = { page: 0, pageSize: 25, sort: 'periodStart', direction: 'asc', ...mix.query };
+      const explainedFilter = await withLongestSpan(db, mix.filter);
       let serverMs: number;
       let explainedMs: number;
       let total: number;
       if (mix.isCounts) {
         serverMs = await timeMs(() => scansService.countScansByStatus(db!, mix.filter));
-        explainedMs = await explainMs(db, buildStatusCountQuery(db, mix.filter));
+        explainedMs = await explainMs(db, buildStatusCountQuery(db, explainedFilter));
         total = Object.values(await scansService.countScansByStatus(db, mix.filter)).reduce((a, b) => a + b, 0);
       } else {
         serverMs = await timeMs(() => scansService.listScans(db!, mix.filter, query));
-        const { ids: rowsQuery, count } = buildCatalogueQueries(db, mix.filter, query);
+        const { ids: rowsQuery, count } = buildCatalogueQueries(db, explainedFilter, query);
         explainedMs = (await explainMs(db, rowsQuery)) + (await explainMs(db, count));
         total = (await scansService.listScans(db, mix.filter, query)).total;
       }
       rows.push([mix.name, String(total), serverMs.toFixed(1), explainedMs.toFixed(1), serverMs < BAR_MS ? 'yes' : 'NO']);
+      if (serverMs >= BAR_MS && !mix.isCounts) {
+        const { ids: idsQuery, count } = buildCatalogueQueries(db, explainedFilter, query);
+        plans.push(`${mix.name}:\n${await explainText(db, idsQuery)}\n${await explainText(db, count)}`);
+      }
     }
     const header = ['filter mix', 'matches', 'server ms (median)', 'EXPLAIN ANALYZE ms', `< ${BAR_MS} ms`];
     const widths = header.map((title, i) => Math.max(title.length, ...rows.map((row) => row[i].length)));
@@ -177,6 +194,7 @@ async function main(): Promise<void> {
     console.log(widths.map((width) => '-'.repeat(width)).join('  '));
     for (const row of rows) console.log(line(row));
     console.log(`\n${scanCount} scans; page size 25; server time = the service call (${RUNS} warm runs, median), EXPLAIN ANALYZE = page-ids query + count query.`);
+    if (plans.length > 0) console.log(`\nPlans of the mixes over the bar:\n${plans.join('\n\n')}`);
     const worst = Math.max(...rows.map((row) => Number(row[2])));
     console.log(worst < BAR_MS ? `All mixes under the ${BAR_MS} ms bar (slowest ${worst.toFixed(1)} ms).` : `Slowest mix ${worst.toFixed(1)} ms: over the ${BAR_MS} ms bar.`);
     process.exitCode = worst < BAR_MS ? 0 : 1;
@@ -187,7 +205,9 @@ async function main(): Promise<void> {
   }
 }
 
-main().catch((error: unknown) => {
-  console.error(error instanceof Error ? error.stack : error);
-  process.exit(1);
-});
+if (require.main === module) {
+  main().catch((error: unknown) => {
+    console.error(error instanceof Error ? error.stack : error);
+    process.exit(1);
+  });
+}

@@ -1,7 +1,7 @@
 import type { PageQuery } from '@shared/api/paging';
 import type { DerivativeState, ScanDetail, ScanSortKey, ScanStatus, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
 import { SCAN_STATUSES } from '@shared/api/scans';
-import type { Insertable, Updateable } from 'kysely';
+import { sql, type Insertable, type Updateable } from 'kysely';
 import type { DbOrTrx } from '../db/database';
 import { PG_FOREIGN_KEY_VIOLATION, PG_UNIQUE_VIOLATION, pgConstraint, pgErrorCode } from '../db/pg-errors';
 import { AppError, HTTP } from '../errors/app-error';
@@ -33,7 +33,8 @@ export function buildCatalogueQueries(db: DbOrTrx, filter: ScanFilter, query: Pa
     .select('scan.id')
     .where(where)
     // Scans still without a period (or station) sort last either way, after the known ones.
-    .orderBy(SORT_COLUMNS[sort], (ob) => (query.direction === 'asc' ? ob.asc().nullsLast() : ob.desc().nullsLast()))
+    // station.name is joined only for its own sort, so the column is named by reference here.
+    .orderBy(sql.ref(SORT_COLUMNS[sort]), (ob) => (query.direction === 'asc' ? ob.asc().nullsLast() : ob.desc().nullsLast()))
     .orderBy('scan.id')
     .limit(query.pageSize)
     .offset(query.page * query.pageSize);
@@ -44,12 +45,25 @@ export function buildCatalogueQueries(db: DbOrTrx, filter: ScanFilter, query: Pa
   return { ids, count };
 }
 
+/**
+ * The filter with the catalogue's longest chart span filled in when it has a `from` (an index read of
+ * scan_span_length_idx), so the date range can be bounded on both sides.
+ */
+export async function withLongestSpan(db: DbOrTrx, filter: ScanFilter): Promise<ScanFilter> {
+  if (!filter.from) return filter;
+  const row = await db
+    .selectFrom('scan')
+    .select(sql<number | null>`extract(epoch from max(span_end - span_start)) * 1000`.as('longest_ms'))
+    .executeTakeFirst();
+  return { ...filter, longestSpanMs: Math.max(0, Number(row?.longest_ms ?? 0)) };
+}
+
 export async function listScans(
   db: DbOrTrx,
   filter: ScanFilter,
   query: PageQuery<ScanSortKey>,
 ): Promise<{ items: ScanSummary[]; total: number }> {
-  const { ids, count } = buildCatalogueQueries(db, filter, query);
+  const { ids, count } = buildCatalogueQueries(db, await withLongestSpan(db, filter), query);
   const [pageIds, { total }] = await Promise.all([ids.execute(), count.executeTakeFirstOrThrow()]);
   if (pageIds.length === 0) return { items: [], total };
   const rows = await selectScans(db).where('scan.id', 'in', pageIds.map((row) => row.id)).execute();
@@ -68,7 +82,7 @@ export function buildStatusCountQuery(db: DbOrTrx, filter: ScanFilter) {
 
 /** Scans per status under the filter (its own status filter left out). */
 export async function countScansByStatus(db: DbOrTrx, filter: ScanFilter): Promise<ScanStatusCounts> {
-  const rows = await buildStatusCountQuery(db, filter).execute();
+  const rows = await buildStatusCountQuery(db, await withLongestSpan(db, filter)).execute();
   const counts = Object.fromEntries(SCAN_STATUSES.map((status) => [status, 0])) as ScanStatusCounts;
   for (const row of rows) counts[row.status] = Number(row.count);
   return counts;
