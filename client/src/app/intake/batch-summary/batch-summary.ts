@@ -8,7 +8,7 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { IntakeBatchDetail } from '@shared/api/intake';
 import type { ScanSummary } from '@shared/api/scans';
-import { catchError, combineLatest, map, of, startWith, switchMap } from 'rxjs';
+import { catchError, combineLatest, map, of, scan, startWith, switchMap } from 'rxjs';
 
 import { ApiError } from '../../core/http/api-error';
 import { IntakeApi } from '../intake-api';
@@ -50,16 +50,12 @@ export class BatchSummary {
           startWith<SummaryView>({ batch: null, failure: null, isLoading: true }),
         ),
       ),
+      // The last loaded batch stays on screen while a reload runs, so the summary does not flash empty.
+      scan((previous, next) => (next.isLoading ? { ...next, batch: previous.batch } : next)),
     ),
     { initialValue: { batch: null, failure: null, isLoading: true } satisfies SummaryView },
   );
-  /** The last loaded batch stays on screen while a reload runs. */
-  private lastBatch: IntakeBatchDetail | null = null;
-  protected readonly batch = computed(() => {
-    const batch = this.view().batch;
-    if (batch) this.lastBatch = batch;
-    return batch ?? (this.view().isLoading ? this.lastBatch : null);
-  });
+  protected readonly batch = computed(() => this.view().batch);
   protected readonly failure = computed(() => this.view().failure);
   protected readonly isLoading = computed(() => this.view().isLoading);
   protected readonly scansById = computed(() => new Map<string, ScanSummary>((this.batch()?.scans ?? []).map((scan) => [scan.id, scan])));
