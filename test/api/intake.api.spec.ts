@@ -3,7 +3,7 @@ import type { AddressInfo } from 'node:net';
 import path from 'node:path';
 import request from 'supertest';
 import type { IntakeBatchDetail, IntakeFileResult, InventoryMatch } from '@shared/api/intake';
-import { API } from '@shared/api/routes';
+import { API, IIIF } from '@shared/api/routes';
 import { createChartForm, createPerson, createStation, type TestPerson } from '../helpers/factories';
 import { makeGifBytes, makeJpeg, makePng, makeTruncatedPng } from '../helpers/images';
 import { makeBombPng, makeEmptyPdf, makeEncryptedPdf, makeJpegWithDpi, makeMultiPageTiff, makeScannedPdf } from '../helpers/scan-files';
@@ -112,6 +112,29 @@ describe('intake batches', () => {
     expect(rows.map((row) => row.dpi)).toEqual([300, 300, 300]);
     expect(new Set(rows.map((row) => row.storage_key)).size).toBe(1);
     expect(await listFiles(path.join(context.storage.rootDir, 'masters'))).toHaveLength(1);
+  });
+
+  it('when a file is stored, then each of its scans has an upload audit row by the archivist', async () => {
+    const response = await sendFile(await makeMultiPageTiff(2), 'pair.tif');
+
+    const rows = await context.db.selectFrom('scan_audit').selectAll().execute();
+    expect(rows.map((row) => [row.scan_id, row.person_id, row.action])).toEqual(
+      expect.arrayContaining(response.body.scans.map((scan: { id: string }) => [scan.id, archivist.id, 'upload'])),
+    );
+    expect(rows).toHaveLength(2);
+  });
+
+  it('when derivatives are not made yet, then a PNG is rendered through IIIF on demand and a PDF page answers 409', async () => {
+    const png = await sendFile(await makePng(200, 100), 'early.png');
+    const pdf = await sendFile(await makeScannedPdf(1), 'early.pdf');
+
+    const pngImage = await request(context.app).get(IIIF.image(png.body.scans[0].id, 'full', '100,')).set('Authorization', `Bearer ${archivist.token}`);
+    const pdfImage = await request(context.app).get(IIIF.image(pdf.body.scans[0].id, 'full', 'max')).set('Authorization', `Bearer ${archivist.token}`);
+
+    expect(pngImage.status).toBe(200);
+    expect(pngImage.headers['content-type']).toBe('image/jpeg');
+    expect(pdfImage.status).toBe(409);
+    expect(pdfImage.body.error.message).toMatch(/still being rendered/);
   });
 
   it('when a JPEG carries 400 dpi in its header, then the scan records 400 dpi', async () => {
