@@ -61,7 +61,8 @@ describe('one chart from upload to station series', () => {
       CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
       LOG_LEVEL: 'warn',
     });
-    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures') });
+    // The worker makes the tiles the Bench reads through IIIF (it falls back to the preview until they exist).
+    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures'), withWorker: true });
     chromium = await launchChromium();
   });
 
