@@ -39,11 +39,11 @@ export async function startServer(config: Config, options: StartOptions = {}): P
   try {
     await migrateToLatest(db);
     await storage.ensureFolders();
-    boss = await startJobBoss(config.databaseUrl, { isWorker: false });
+    boss = await startJobBoss(config.databaseUrl, { isWorker: false, logger });
     const jobs = pgBossDerivativeJobs(boss);
     if (options.demoFixturesDir) await seedDemo({ db, storage, jobs }, { fixturesDir: options.demoFixturesDir, logger });
     if (options.withWorker) {
-      workerBoss = await startJobBoss(config.databaseUrl, { isWorker: true });
+      workerBoss = await startJobBoss(config.databaseUrl, { isWorker: true, logger });
       worker = await startWorker({ db, storage, boss: workerBoss, logger: logger.child({ process: 'worker' }), pollingIntervalSeconds: 0.5 });
     }
   } catch (error) {

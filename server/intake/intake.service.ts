@@ -5,6 +5,7 @@ import type { ScanMetadataInput, ScanSummary } from '@shared/api/scans';
 import { normalizeTags } from '@shared/api/parse-scan-metadata';
 import type { StationSummary } from '@shared/api/stations';
 import type { Db, DbOrTrx } from '../db/database';
+import { PG_FOREIGN_KEY_VIOLATION, pgErrorCode } from '../db/pg-errors';
 import { AppError, HTTP, validationFailed } from '../errors/app-error';
 import type { ScanDeps } from '../scans/scan-deps';
 import { uploadMaster, type ParsedUploadFields, type ReceivedFile } from '../scans/scan-upload.service';
@@ -68,8 +69,10 @@ export async function recordRefusal(db: Db, batchId: string, fileName: string, e
       code: error.code as ApiErrorCode,
       scanIds: existingScanId ? [existingScanId] : [],
     })
-    // The batch itself may be what is missing (404); then there is nothing to record against.
-    .catch(() => undefined);
+    .catch((recordError: unknown) => {
+      // The batch was removed meanwhile: there is nothing to record against, and the refusal still stands.
+      if (pgErrorCode(recordError) !== PG_FOREIGN_KEY_VIOLATION) throw recordError;
+    });
 }
 
 function stationKey(value: string): string {

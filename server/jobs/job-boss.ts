@@ -1,5 +1,6 @@
 import { CompiledQuery } from 'kysely';
 import PgBoss from 'pg-boss';
+import type { Logger } from 'pino';
 import type { DbOrTrx } from '../db/database';
 
 /** The queue of derivative jobs; job data `{ scanId }`. */
@@ -18,7 +19,7 @@ export interface DerivativeJobData {
  * A started pg-boss on the app's database, with the derivatives queue created. `isWorker: false` (the web
  * server) only sends jobs: no maintenance or cron supervision runs in that process.
  */
-export async function startJobBoss(databaseUrl: string, options: { isWorker: boolean }): Promise<PgBoss> {
+export async function startJobBoss(databaseUrl: string, options: { isWorker: boolean; logger?: Logger }): Promise<PgBoss> {
   const boss = new PgBoss({
     connectionString: databaseUrl,
     schema: JOB_SCHEMA,
@@ -26,7 +27,8 @@ export async function startJobBoss(databaseUrl: string, options: { isWorker: boo
     supervise: options.isWorker,
     schedule: false,
   });
-  boss.on('error', () => undefined);
+  // pg-boss reports failed maintenance and polling here; without a listener an 'error' event would end the process.
+  boss.on('error', (error) => options.logger?.error({ err: error }, 'job queue error'));
   await boss.start();
   await boss.createQueue(DERIVATIVES_QUEUE);
   return boss;

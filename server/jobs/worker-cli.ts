@@ -25,7 +25,7 @@ async function main(): Promise<void> {
   await migrateToLatest(db);
   const storage = createFileStorage(config.storageDir);
   await storage.ensureFolders();
-  const boss = await startJobBoss(config.databaseUrl, { isWorker: true });
+  const boss = await startJobBoss(config.databaseUrl, { isWorker: true, logger });
   const worker = await startWorker({ db, storage, boss, logger });
   logger.info('derivatives worker started');
 

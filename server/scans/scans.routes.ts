@@ -1,5 +1,5 @@
 import { Router, type Request, type Response } from 'express';
-import { DEFAULT_PAGE_SIZE, type Page } from '@shared/api/paging';
+import type { Page } from '@shared/api/paging';
 import { parseScanMetadataInput, parseScanStatusChange } from '@shared/api/parse-scan-metadata';
 import { SCAN_SORT_KEYS, type ScanAuditEntry, type ScanDetail, type ScanStatusCounts, type ScanSummary } from '@shared/api/scans';
 import type { AppDeps } from '../app-deps';
@@ -53,7 +53,8 @@ export function scansRoutes(deps: AppDeps): Router {
 
   router.get('/:scanId/audit', mayEdit, async (req, res: Response<Page<ScanAuditEntry>>) => {
     const scanId = parseScanId(req.params.scanId);
-    const query = readPageQuery({ pageSize: String(DEFAULT_PAGE_SIZE), ...req.query }, [] as const);
+    // Newest first, always: the trail has no other sort.
+    const query = readPageQuery(req.query, [] as const);
     res.json(await scansService.listScanAudit(db, scanId, query));
   });
 
