@@ -18,6 +18,7 @@ import { BatchSummary } from '../batch-summary/batch-summary';
 import { filesFromDrop, sortSelection } from '../dropped-files';
 import { IntakeApi } from '../intake-api';
 import { IntakeQueue } from '../intake-queue';
+import type { SendsFiles } from '../intake-running-guard';
 import { IntakeProgress } from '../intake-progress/intake-progress';
 import { RecentBatches } from '../recent-batches/recent-batches';
 import { UploadPanel } from '../upload-panel/upload-panel';
@@ -50,11 +51,12 @@ function defaultLabel(now: Date): string {
     UploadPanel,
   ],
   providers: [IntakeQueue],
+  host: { '(window:beforeunload)': 'warnBeforeUnload($event)' },
   templateUrl: './intake-page.html',
   styleUrl: './intake-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class IntakePage {
+export class IntakePage implements SendsFiles {
   private readonly intakeApi = inject(IntakeApi);
   private readonly destroyRef = inject(DestroyRef);
   protected readonly queue = inject(IntakeQueue);
@@ -77,6 +79,15 @@ export class IntakePage {
   protected readonly summaryRefresh = signal(0);
   protected readonly failure = signal<string | null>(null);
   protected readonly isStarting = signal(false);
+
+  isSending(): boolean {
+    return this.isStarting() || this.queue.isRunning();
+  }
+
+  /** Closing the tab mid-run loses the unsent files; the browser asks (its own text) before it does. */
+  protected warnBeforeUnload(event: BeforeUnloadEvent): void {
+    if (this.isSending()) event.preventDefault();
+  }
 
   protected pickFiles(event: Event): void {
     const input = event.target as HTMLInputElement;
