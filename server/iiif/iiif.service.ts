@@ -84,6 +84,9 @@ export async function getImageFile(
   const cachedPath = storage.pathOf(cacheKey);
   if (await exists(cachedPath)) return { filePath: cachedPath, contentType };
 
+  if (!(await storage.exists(file.storageKey))) {
+    throw new AppError(HTTP.notFound, 'not_found', 'The master file of this scan is missing from storage; its image cannot be made.');
+  }
   const source = await findPageSource(storage, file);
   if (!source) throw new AppError(HTTP.conflict, 'conflict', 'The pages of this PDF are still being rendered; try again when its derivatives are ready.');
   const tempPath = storage.newTempPath(`.${request.format}`);

@@ -44,6 +44,12 @@ async function runJob(deps: WorkerDeps, job: PgBoss.JobWithMetadata<DerivativeJo
     return;
   }
   await scansRepository.setDerivativeState(deps.db, scanId, 'working', { isAttempt: true });
+  if (!(await deps.storage.exists(file.storageKey))) {
+    // Retrying cannot bring a lost master back: fail now, with the reason, instead of after every back-off.
+    await scansRepository.setDerivativeState(deps.db, scanId, 'failed', { error: `The master file ${file.storageKey} is missing from storage.` });
+    deps.logger.error({ scanId, storageKey: file.storageKey }, 'master file missing');
+    return;
+  }
   try {
     await makeDerivatives(deps.storage, file);
   } catch (error) {

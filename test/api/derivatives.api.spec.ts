@@ -2,7 +2,7 @@ import fs from 'node:fs/promises';
 import path from 'node:path';
 import sharp from 'sharp';
 import request from 'supertest';
-import { API } from '@shared/api/routes';
+import { API, IIIF } from '@shared/api/routes';
 import type { ScanDetail } from '@shared/api/scans';
 import { pgBossDerivativeJobs } from '../../server/jobs/job-boss';
 import { createPerson, type TestPerson } from '../helpers/factories';
@@ -97,12 +97,13 @@ describe('scan derivatives worker', () => {
     expect((await fs.readFile(context.storage.pathOf(second.storage_key))).equals(tiff)).toBe(true);
   });
 
-  it('when a job cannot read its master, then the scan ends failed with the reason after its retries, and retry queues it again', async () => {
-    // A job with no retries left at once, so the test does not wait through the production back-off.
-    const [scanId] = await sendFile(await makePng(), 'gone.png');
+  it('when a job fails on its last try, then the scan ends failed with the reason, and retry queues it again', async () => {
+    // A page raster that cannot be decoded: the master is a PNG, but its bytes were damaged after upload.
+    // retryLimit 0, so the test does not wait through the production back-off.
+    const [scanId] = await sendFile(await makePng(), 'damaged.png');
     await waitForDerivatives(context.db, [scanId]);
     const row = await scanRow(scanId);
-    await fs.rm(context.storage.pathOf(row.storage_key));
+    await fs.writeFile(context.storage.pathOf(row.storage_key), Buffer.from('no longer a PNG'));
     await context.db.updateTable('scan').set({ derivative_state: 'queued' }).where('id', '=', scanId).execute();
     await context.boss.send('scan-derivatives', { scanId }, { retryLimit: 0 });
 
@@ -111,9 +112,27 @@ describe('scan derivatives worker', () => {
     const retried = await request(context.app).post(API.scanDerivativesRetry(scanId)).set('Authorization', `Bearer ${archivist.token}`);
 
     expect(states[scanId]).toBe('failed');
-    expect(failed.derivative_error).toMatch(/missing|exist|no such file|input file/i);
+    expect(failed.derivative_error).toMatch(/unsupported image format|corrupt|input/i);
     expect(retried.status).toBe(200);
     expect(retried.body.derivativeState).toBe('queued');
+  });
+
+  it('when a master is missing from storage, then its job fails at once without retries and IIIF answers 404', async () => {
+    const [scanId] = await sendFile(await makePng(), 'gone.png');
+    await waitForDerivatives(context.db, [scanId]);
+    const row = await scanRow(scanId);
+    await fs.rm(context.storage.pathOf(row.storage_key));
+    await context.db.updateTable('scan').set({ derivative_state: 'queued' }).where('id', '=', scanId).execute();
+    await context.jobs.enqueue(context.db, [scanId]);
+
+    const states = await waitForDerivatives(context.db, [scanId]);
+    const failed = await scanRow(scanId);
+    const image = await request(context.app).get(IIIF.image(scanId, '0,0,10,10', 'max')).set('Authorization', `Bearer ${archivist.token}`);
+
+    expect(states[scanId]).toBe('failed');
+    expect(failed.derivative_error).toMatch(/missing from storage/);
+    expect(failed.derivative_attempts).toBe(2);
+    expect(image.status).toBe(404);
   });
 
   it('when derivatives are ready, then a retry is refused with 409', async () => {
