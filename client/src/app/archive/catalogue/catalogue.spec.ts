@@ -97,4 +97,29 @@ describe('Catalogue', () => {
     expect(request.request.params.get('page')).toBe('0');
     request.flush(pageOf(0, 0, 0));
   });
+
+  it('when some rows wait for their image tiles, then the page is asked for again quietly until they are ready', async () => {
+    jest.useFakeTimers({ advanceTimers: true });
+    const fixture = TestBed.createComponent(Catalogue);
+    await fixture.whenStable();
+    expectList().flush({ items: [scanSummaryForTest({ id: 'busy', derivativeState: 'working' })], total: 1, page: 0, pageSize: 25 });
+    await fixture.whenStable();
+
+    jest.advanceTimersByTime(3100);
+    await fixture.whenStable();
+    const isBarShown = (fixture.nativeElement as HTMLElement).querySelector('mat-progress-bar') !== null;
+    expectList().flush({ items: [scanSummaryForTest({ id: 'busy', derivativeState: 'queued' })], total: 1, page: 0, pageSize: 25 });
+    await fixture.whenStable();
+    jest.advanceTimersByTime(3100);
+    await fixture.whenStable();
+    // Failed is an end state too (and asks for no thumbnail).
+    expectList().flush({ items: [scanSummaryForTest({ id: 'busy', derivativeState: 'failed' })], total: 1, page: 0, pageSize: 25 });
+    await fixture.whenStable();
+    jest.advanceTimersByTime(6000);
+    await fixture.whenStable();
+
+    expect(isBarShown).toBe(false);
+    controller.expectNone((request) => request.url === '/api/scans');
+    jest.useRealTimers();
+  });
 });

@@ -1,5 +1,5 @@
 import { DatePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, inject, input, model, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, input, model, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
@@ -10,7 +10,7 @@ import { MatTooltipModule } from '@angular/material/tooltip';
 import { RouterLink } from '@angular/router';
 import { DEFAULT_PAGE_SIZE, type Page, type PageQuery } from '@shared/api/paging';
 import { SCAN_SORT_KEYS, type ScanFilters, type ScanSortKey, type ScanSummary } from '@shared/api/scans';
-import { catchError, combineLatest, map, of, scan, startWith, switchMap } from 'rxjs';
+import { catchError, combineLatest, map, Observable, of, scan, startWith, switchMap } from 'rxjs';
 
 import { ScansApi } from '../../core/api/scans-api';
 import { ApiError } from '../../core/http/api-error';
@@ -22,6 +22,9 @@ interface CatalogueView {
   isLoading: boolean;
   failure: string | null;
 }
+
+/** While the worker makes some rows' images, look again this often (quietly: no progress bar). */
+export const CATALOGUE_POLL_MS = 3000;
 
 const DERIVATIVE_ICONS: Readonly<Record<string, string>> = { queued: 'schedule', working: 'autorenew', ready: 'image', failed: 'broken_image' };
 
@@ -42,17 +45,18 @@ export class Catalogue {
 
   protected readonly columns = ['thumbnail', 'periodStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
   protected readonly derivativeIcons = DERIVATIVE_ICONS;
-  private readonly reloads = signal(0);
+  /** Bumped to reload; `quiet` reloads keep the progress bar still (they only refresh states). */
+  private readonly reloads = signal({ count: 0, quiet: false });
 
   private readonly view = toSignal(
     combineLatest([toObservable(this.query), toObservable(this.filters), toObservable(this.reloads)]).pipe(
-      switchMap(([query, filters]) =>
-        this.scansApi.list(query, filters).pipe(
+      switchMap(([query, filters, reload]) => {
+        const answer: Observable<CatalogueView> = this.scansApi.list(query, filters).pipe(
           map((page): CatalogueView => ({ page, isLoading: false, failure: null })),
           catchError((error: unknown) => of<CatalogueView>({ page: null, isLoading: false, failure: describe(error) })),
-          startWith<CatalogueView>({ page: null, isLoading: true, failure: null }),
-        ),
-      ),
+        );
+        return reload.quiet ? answer : answer.pipe(startWith<CatalogueView>({ page: null, isLoading: true, failure: null }));
+      }),
       // Keep the last page on screen while the next one loads, so the table does not flash empty.
       scan((previous, next) => (next.isLoading ? { ...next, page: previous.page } : next)),
     ),
@@ -64,8 +68,17 @@ export class Catalogue {
   protected readonly isLoading = computed(() => this.view().isLoading);
   protected readonly failure = computed(() => this.view().failure);
 
+  constructor() {
+    effect((onCleanup) => {
+      const isBusy = this.rows().some((row) => row.derivativeState === 'queued' || row.derivativeState === 'working');
+      if (!isBusy || this.isLoading()) return;
+      const timer = setTimeout(() => this.reloads.update((r) => ({ count: r.count + 1, quiet: true })), CATALOGUE_POLL_MS);
+      onCleanup(() => clearTimeout(timer));
+    });
+  }
+
   reload(): void {
-    this.reloads.update((n) => n + 1);
+    this.reloads.update((r) => ({ count: r.count + 1, quiet: false }));
   }
 
   protected turnPage(event: PageEvent): void {
