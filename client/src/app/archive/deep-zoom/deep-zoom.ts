@@ -25,6 +25,8 @@ import { ChartGridDrawing } from '../../shared/chart-grid-drawing/chart-grid-dra
 import { gridPaths } from '../../shared/chart-grid-drawing/grid-paths';
 
 const MM_PER_INCH = 25.4;
+/** OpenSeadragon event types a grid drag keeps to itself. */
+const POINTER_EVENTS = new Set(['pointerdown', 'pointerup', 'pointermove', 'pointercancel', 'click', 'dblclick', 'contextmenu']);
 const ZOOM_STEP = 1.5;
 
 /** Where the grid sits on the scan and how big it is, in full-resolution scan pixels. */
@@ -84,6 +86,8 @@ export class DeepZoom {
   protected readonly failure = signal<string | null>(null);
   protected readonly tilesLoaded = signal(0);
   protected readonly tilesDrawn = signal(0);
+  /** Drags move the grid (true) or pan the scan under it (false). */
+  protected readonly isMovingGrid = signal(true);
   private readonly offset = signal<{ xPx: number; yPx: number } | null>(null);
   private readonly imageSize = signal<{ widthPx: number; heightPx: number } | null>(null);
 
@@ -118,6 +122,10 @@ export class DeepZoom {
 
   showWhole(): void {
     this.viewer?.viewport.goHome();
+  }
+
+  toggleGridMoving(): void {
+    this.isMovingGrid.update((isMoving) => !isMoving);
   }
 
   /** Puts the grid back in the middle of the scan. */
@@ -184,7 +192,13 @@ export class DeepZoom {
     this.viewer = viewer;
     this.gridTracker = new OSD.MouseTracker({
       element: this.gridHost().nativeElement,
-      // Dragging the grid must not pan the scan underneath.
+      // Dragging the grid must not pan the scan underneath; the wheel still zooms.
+      preProcessEventHandler: (info) => {
+        if (POINTER_EVENTS.has(info.eventType)) {
+          info.stopPropagation = true;
+          info.preventDefault = true;
+        }
+      },
       dragHandler: (event) => this.dragGrid((event as OpenSeadragon.MouseTrackerEvent & { delta: OpenSeadragon.Point }).delta),
     });
   }
