@@ -1,23 +1,9 @@
+import { GENERATED_WEEKLY_FORM } from '../../fixtures/generator/weekly-form';
 import { parseChartFile } from './chart-file';
 
 function validChart(): Record<string, unknown> {
   return {
-    form: {
-      name: 'weekly',
-      pressureUnit: 'hPa',
-      pressureMin: 950,
-      pressureMax: 1050,
-      drumHours: 168,
-      mmPerHour: 1.5,
-      mmPerUnit: 0.9,
-      penArmRadiusMm: 150,
-      pivotPressure: null,
-      arcSide: 1,
-      gridPressureStep: 1,
-      labelPressureStep: 10,
-      gridHoursStep: 2,
-      labelHoursStep: 24,
-    },
+    form: { ...GENERATED_WEEKLY_FORM, name: 'weekly' },
     chartStart: '2026-03-02T00:00:00Z',
     chartOn: '2026-03-02T01:00:00Z',
     chartOff: '2026-03-08T22:00:00Z',

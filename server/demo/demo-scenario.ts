@@ -1,6 +1,7 @@
 import type { Role } from '@shared/api/roles';
 import type { StationInput } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
+import { GENERATED_WEEKLY_FORM } from '../../fixtures/generator/weekly-form';
 
 /** Password of every demo account (invented scenario; never use outside a demo). */
 export const DEMO_PASSWORD = 'isallo-demo';
@@ -41,23 +42,8 @@ export const DEMO_STATIONS: StationInput[] = [
   },
 ];
 
-/** Used when the generated sample's own chart form is not there; the same geometry the generator draws. */
-export const DEMO_WEEKLY_FORM_FALLBACK: ChartForm = {
-  name: 'Weekly 950–1050 hPa',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.5,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 150,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 24,
-};
+/** Used when the generated sample's own chart form is not there: the geometry the generator draws. */
+export const DEMO_WEEKLY_FORM_FALLBACK: ChartForm = { ...GENERATED_WEEKLY_FORM, name: 'Weekly 950–1050 hPa' };
 
 /** An invented daily form: one turn in 26 h (a day plus overlap for late changes), 15-minute arcs. */
 export const DEMO_DAILY_FORM: ChartForm = {

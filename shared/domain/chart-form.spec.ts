@@ -1,22 +1,7 @@
 import { type ChartForm, chartHeightMm, chartLengthMm, checkChartForm, pivotLevelMm } from './chart-form';
+import { TEST_WEEKLY_FORM } from './testing/test-weekly-form';
 
-// An invented weekly form: 950–1050 hPa over 90 mm, 168 h over 268.8 mm, 120 mm pen arm.
-const weeklyForm: ChartForm = {
-  name: 'Test weekly 950–1050',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.6,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 120,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 12,
-};
+const weeklyForm = TEST_WEEKLY_FORM;
 
 describe('chart form sizes', () => {
   it('when the form is weekly 950–1050 hPa, then its height, length and default pivot level follow from the scales', () => {

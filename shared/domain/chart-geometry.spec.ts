@@ -1,22 +1,7 @@
-import type { ChartForm } from './chart-form';
 import { arcOffsetMm, paperFromReading, readingFromPaper } from './chart-geometry';
+import { TEST_WEEKLY_FORM } from './testing/test-weekly-form';
 
-const weeklyForm: ChartForm = {
-  name: 'Test weekly 950–1050',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.6,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 120,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 12,
-};
+const weeklyForm = TEST_WEEKLY_FORM;
 
 describe('arcOffsetMm', () => {
   // Circle of radius R about the pivot: offset = s·(R − √(R² − (v − vc)²)), vc = 45 mm here (geometry of a circle).

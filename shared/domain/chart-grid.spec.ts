@@ -1,24 +1,8 @@
-import type { ChartForm } from './chart-form';
 import { arcOffsetMm } from './chart-geometry';
 import { chartGrid, gridValues } from './chart-grid';
+import { TEST_WEEKLY_FORM } from './testing/test-weekly-form';
 
-// An invented weekly form: 950–1050 hPa at 0.9 mm/hPa (90 mm high), 168 h at 1.6 mm/h, 120 mm pen arm.
-const weeklyForm: ChartForm = {
-  name: 'Test weekly 950–1050',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.6,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 120,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 12,
-};
+const weeklyForm = TEST_WEEKLY_FORM;
 
 describe('gridValues', () => {
   it('when the range is 950 to 1050 by 1, then both ends and every whole number between are listed', () => {

@@ -1,25 +1,10 @@
-import type { ChartForm } from './chart-form';
 import { paperFromReading } from './chart-geometry';
 import { applyHomography } from './homography';
 import { findOutlierPins } from './pin-outliers';
 import type { RegistrationModel } from './registration-model';
+import { TEST_WEEKLY_FORM } from './testing/test-weekly-form';
 
-const form: ChartForm = {
-  name: 'Test weekly',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.6,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 120,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 12,
-};
+const form = TEST_WEEKLY_FORM;
 // A true map of each family: mirrored similarity at 300 dpi, a skewed affine, a slight perspective.
 const maps: Record<RegistrationModel, number[]> = {
   similarity: [11.8, 0.3, 150, 0.3, -11.8, 1250, 0, 0, 1],

@@ -11,24 +11,9 @@ import {
   type RegistrationModel,
   type RegistrationPin,
 } from './registration';
+import { TEST_WEEKLY_FORM } from './testing/test-weekly-form';
 
-// An invented weekly hPa form: 950–1050 hPa over 90 mm, 1.6 mm per hour, 120 mm pen arm.
-const weeklyForm: ChartForm = {
-  name: 'Test weekly 950–1050',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.6,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 120,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 12,
-};
+const weeklyForm = TEST_WEEKLY_FORM;
 
 // 300 dpi scan (11.811 px/mm), rotated 1.5°, paper v up → pixel y down, shifted into the image.
 const pxPerMm = 300 / 25.4;

@@ -10,6 +10,7 @@ import type { Db } from '../../server/db/database';
 import * as peopleRepository from '../../server/people/people.repository';
 import * as stationsRepository from '../../server/stations/stations.repository';
 import { TEST_JWT_SECRET } from './test-app';
+import { GENERATED_WEEKLY_FORM } from '../../fixtures/generator/weekly-form';
 
 export const TEST_PASSWORD = 'correct-pen-arm-42';
 
@@ -56,23 +57,8 @@ export async function createStation(db: Db, overrides: Partial<StationInput> = {
   });
 }
 
-/** A weekly 950–1050 hPa form with a 150 mm pen arm (the geometry of the demo sample). */
-export const TEST_WEEKLY_FORM: ChartForm = {
-  name: 'Test weekly 950–1050 hPa',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 168,
-  mmPerHour: 1.5,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 150,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 2,
-  labelHoursStep: 24,
-};
+/** A weekly 950–1050 hPa form with a 150 mm pen arm: the geometry of the demo sample, under its own name. */
+export const TEST_WEEKLY_FORM: ChartForm = { ...GENERATED_WEEKLY_FORM, name: 'Test weekly 950–1050 hPa' };
 
 export async function createChartForm(db: Db, overrides: Partial<ChartForm> = {}) {
   return chartFormsRepository.insertChartForm(db, { ...TEST_WEEKLY_FORM, name: `Test form ${nextNumber()}`, ...overrides });
