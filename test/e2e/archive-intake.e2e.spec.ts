@@ -6,18 +6,16 @@
  * and status, and one scan opens in deep zoom with its chart form's grid laid over it. Every file is made
  * here at test time (sharp and a hand-written PDF); stations, boxes and dates are invented.
  */
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import sharp from 'sharp';
 import { generateChart } from '../../fixtures/generator/generate-chart';
-import { loadConfig } from '../../server/config';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
-import { startServer, type RunningServer } from '../../server/server';
+import type { RunningServer } from '../../server/server';
+import { startE2eServer } from '../helpers/e2e-server';
 import { chooseOption, launchChromium, signIn, type BrowserSession } from '../helpers/browser';
 
-const ROOT = resolve(__dirname, '../..');
 
 jest.setTimeout(300_000);
 
@@ -131,18 +129,7 @@ describe('an intake batch from a folder to a searchable catalogue with deep zoom
   let batchIdSeen: string | null = null;
 
   beforeAll(async () => {
-    workDir = mkdtempSync(join(tmpdir(), 'isallo-e2e-intake-'));
-    const databaseUrl = process.env['E2E_DATABASE_URL'];
-    if (!databaseUrl) throw new Error('E2E_DATABASE_URL is not set; run the browser suite through scripts/test.ts');
-    const config = loadConfig({
-      DATABASE_URL: databaseUrl,
-      JWT_SECRET: 'e2e-secret-of-the-intake-suite',
-      PORT: '0',
-      STORAGE_DIR: join(workDir, 'storage'),
-      CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
-      LOG_LEVEL: 'warn',
-    });
-    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures'), withWorker: true });
+    ({ server, workDir } = await startE2eServer('intake', { withWorker: true }));
     chromium = await launchChromium();
   });
 

@@ -4,15 +4,12 @@
  * time standard, history), its barograph, and a new daily chart form whose printed grid the page draws from
  * the numbers; a form that scans already use is shown locked. The station and instrument are invented.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
-import { loadConfig } from '../../server/config';
+import { rmSync } from 'node:fs';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
-import { startServer, type RunningServer } from '../../server/server';
+import type { RunningServer } from '../../server/server';
+import { startE2eServer } from '../helpers/e2e-server';
 import { chooseOption, launchChromium, signIn, type BrowserSession } from '../helpers/browser';
 
-const ROOT = resolve(__dirname, '../..');
 
 jest.setTimeout(180_000);
 
@@ -22,18 +19,7 @@ describe('the archive registers', () => {
   let chromium: BrowserSession;
 
   beforeAll(async () => {
-    workDir = mkdtempSync(join(tmpdir(), 'isallo-e2e-registers-'));
-    const databaseUrl = process.env['E2E_DATABASE_URL'];
-    if (!databaseUrl) throw new Error('E2E_DATABASE_URL is not set; run the browser suite through scripts/test.ts');
-    const config = loadConfig({
-      DATABASE_URL: databaseUrl,
-      JWT_SECRET: 'e2e-secret-of-the-registers-suite',
-      PORT: '0',
-      STORAGE_DIR: join(workDir, 'storage'),
-      CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
-      LOG_LEVEL: 'warn',
-    });
-    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures') });
+    ({ server, workDir } = await startE2eServer('registers'));
     chromium = await launchChromium();
   });
 

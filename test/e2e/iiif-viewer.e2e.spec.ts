@@ -5,17 +5,16 @@
  * requests tiles with the bearer token and draws them. Nothing of Isallo's client runs here: the viewer is
  * loaded on its own into a blank page of the server's origin, as another site's viewer would use it.
  */
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import sharp from 'sharp';
 import type { SignInResponse } from '@shared/api/auth';
 import type { IntakeBatch, IntakeFileResult } from '@shared/api/intake';
 import type { ScanDetail } from '@shared/api/scans';
-import { loadConfig } from '../../server/config';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
-import { startServer, type RunningServer } from '../../server/server';
+import type { RunningServer } from '../../server/server';
+import { startE2eServer } from '../helpers/e2e-server';
 import { launchChromium, type BrowserSession } from '../helpers/browser';
 
 const ROOT = resolve(__dirname, '../..');
@@ -130,18 +129,7 @@ describe('a general-purpose IIIF viewer reads the archive', () => {
   let scan: ScanDetail;
 
   beforeAll(async () => {
-    workDir = mkdtempSync(join(tmpdir(), 'isallo-e2e-iiif-'));
-    const databaseUrl = process.env['E2E_DATABASE_URL'];
-    if (!databaseUrl) throw new Error('E2E_DATABASE_URL is not set; run the browser suite through scripts/test.ts');
-    const config = loadConfig({
-      DATABASE_URL: databaseUrl,
-      JWT_SECRET: 'e2e-secret-of-the-iiif-suite',
-      PORT: '0',
-      STORAGE_DIR: join(workDir, 'storage'),
-      CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
-      LOG_LEVEL: 'warn',
-    });
-    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures'), withWorker: true });
+    ({ server, workDir } = await startE2eServer('iiif', { withWorker: true }));
     chromium = await launchChromium();
     // The viewer's script goes into a blank page of the server's origin; the app's CSP is for the app's own pages.
     context = await chromium.browser.newContext({ bypassCSP: true, viewport: { width: 1000, height: 700 } });

@@ -3,18 +3,16 @@
  * grid and clicks along the pen line on the Bench, and a climatologist downloads the station series as CSV.
  * The chart is invented by fixtures/generator, so the true pressure at every hour is known.
  */
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+import { readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import { generateChart } from '../../fixtures/generator/generate-chart';
 import { pixelFromReading } from '../../fixtures/generator/sheet-layout';
-import { loadConfig } from '../../server/config';
-import { startServer, type RunningServer } from '../../server/server';
+import type { RunningServer } from '../../server/server';
+import { startE2eServer } from '../helpers/e2e-server';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import { chooseOption, launchChromium, signIn, signOut, type BrowserSession } from '../helpers/browser';
 
-const ROOT = resolve(__dirname, '../..');
 const CHART_START = '2026-04-06T00:00:00Z';
 const HOUR_MS = 3_600_000;
 
@@ -50,19 +48,7 @@ describe('one chart from upload to station series', () => {
   let chromium: BrowserSession;
 
   beforeAll(async () => {
-    workDir = mkdtempSync(join(tmpdir(), 'isallo-e2e-'));
-    const databaseUrl = process.env['E2E_DATABASE_URL'];
-    if (!databaseUrl) throw new Error('E2E_DATABASE_URL is not set; run the browser suite through scripts/test.ts');
-    const config = loadConfig({
-      DATABASE_URL: databaseUrl,
-      JWT_SECRET: 'e2e-secret-of-the-browser-suite',
-      PORT: '0',
-      STORAGE_DIR: join(workDir, 'storage'),
-      CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
-      LOG_LEVEL: 'warn',
-    });
-    // The worker makes the tiles the Bench reads through IIIF (it falls back to the preview until they exist).
-    server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures'), withWorker: true });
+    ({ server, workDir } = await startE2eServer('one-chart', { withWorker: true }));
     chromium = await launchChromium();
   });
 
