@@ -1,6 +1,6 @@
 import type { SeriesFlag, SeriesPoint } from '@shared/api/series';
 
-import { buildLinePath, createPlotScales, medianStepMs, type PlotBox } from './plot-scales';
+import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type PlotBox } from './plot-scales';
 
 const BOX: PlotBox = { width: 1000, height: 500, marginLeft: 50, marginRight: 50, marginTop: 0, marginBottom: 100 };
 
@@ -92,5 +92,21 @@ describe('medianStepMs', () => {
     const stepMs = medianStepMs(points);
 
     expect(stepMs).toBe(3_600_000);
+  });
+});
+
+describe('time tick labels', () => {
+  const hourMs = 3_600_000;
+
+  it.each([
+    ['2026-03-08T00:00:00Z', 24 * hourMs, 'Sun 8 Mar'],
+    ['2026-03-02T00:00:00Z', 24 * hourMs, 'Mon 2 Mar'],
+    ['2026-03-02T06:00:00Z', 6 * hourMs, '06:00'],
+    ['2026-03-03T00:00:00Z', 6 * hourMs, 'Tue 3 Mar'],
+    ['2026-04-01T00:00:00Z', 30 * 24 * hourMs, 'Apr 2026'],
+  ])('when the tick is %s with a step of %d ms, then its label is %s', (iso, stepMs, label) => {
+    const text = formatUtcTick(new Date(iso), stepMs);
+
+    expect(text).toBe(label);
   });
 });

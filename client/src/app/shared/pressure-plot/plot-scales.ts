@@ -77,3 +77,19 @@ export function medianStepMs(points: readonly SeriesPoint[]): number {
 function round(value: number): number {
   return Math.round(value * 10) / 10;
 }
+
+const DAY_MS = 86_400_000;
+const WEEKDAYS = ['Sun', 'Mon', 'Tue', 'Wed', 'Thu', 'Fri', 'Sat'];
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/**
+ * Label of a UTC time tick, one style per axis (d3's default mixes "Mar 08" into a row of weekdays):
+ * "Mon 2 Mar" on daily ticks, "Mar 2026" on monthly ones, "06:00" within a day with the day at midnight.
+ */
+export function formatUtcTick(tick: Date, stepMs: number): string {
+  const day = `${WEEKDAYS[tick.getUTCDay()]} ${tick.getUTCDate()} ${MONTHS[tick.getUTCMonth()]}`;
+  if (stepMs >= 28 * DAY_MS) return `${MONTHS[tick.getUTCMonth()]} ${tick.getUTCFullYear()}`;
+  if (stepMs >= DAY_MS) return day;
+  if (tick.getUTCHours() === 0 && tick.getUTCMinutes() === 0) return day;
+  return `${String(tick.getUTCHours()).padStart(2, '0')}:${String(tick.getUTCMinutes()).padStart(2, '0')}`;
+}

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import type { SeriesPoint } from '@shared/api/series';
 
-import { buildLinePath, createPlotScales, medianStepMs, type PlotBox } from './plot-scales';
+import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type PlotBox } from './plot-scales';
 
 const BOX: PlotBox = { width: 960, height: 360, marginLeft: 56, marginRight: 16, marginTop: 12, marginBottom: 36 };
 // A step more than this many typical steps long is treated as missing data.
@@ -27,8 +27,9 @@ export class PressurePlot {
   });
   protected readonly xTicks = computed(() => {
     const { x } = this.scales();
-    const format = x.tickFormat();
-    return x.ticks(8).map((tick) => ({ at: x(tick), label: format(tick) }));
+    const ticks = x.ticks(8);
+    const stepMs = ticks.length > 1 ? ticks[1].getTime() - ticks[0].getTime() : 0;
+    return ticks.map((tick) => ({ at: x(tick), label: formatUtcTick(tick, stepMs) }));
   });
   protected readonly yTicks = computed(() => {
     const { y } = this.scales();
