@@ -36,10 +36,10 @@ describe('fits', () => {
     ['similarity with a mirror (paper up, pixels down)', fitSimilarity, [8, 0, 30, 0, -8, 900, 0, 0, 1]],
     ['affine', fitAffine, [8, 0.5, 30, 0.2, -7.5, 900, 0, 0, 1]],
     ['projective', fitProjective, [8, 0.5, 30, 0.2, -7.5, 900, 1e-4, -2e-4, 1]],
-  ])('when exact points come from a known %s map, then the fit returns it', (_label, fit, truth) => {
+  ])('when exact points come from a known %s map, then the fit returns it', (_label, fitMap, truth) => {
     const target = square.map((p) => applyHomography(truth, p));
 
-    const h = fit(square, target);
+    const h = fitMap(square, target);
 
     expect(h).not.toBeNull();
     (h as number[]).forEach((value, i) => expect(value).toBeCloseTo(truth[i], 8));
@@ -50,8 +50,8 @@ describe('fits', () => {
     ['affine from collinear points', fitAffine, [{ x: 0, y: 0 }, { x: 1, y: 1 }, { x: 2, y: 2 }, { x: 3, y: 3 }]],
     ['projective from three points', fitProjective, square.slice(0, 3)],
     ['projective with four of five points on a line', fitProjective, [{ x: 0, y: 0 }, { x: 1, y: 0 }, { x: 2, y: 0 }, { x: 3, y: 0 }, { x: 1, y: 5 }]],
-  ])('when fitting %s, then the fit is null', (_label, fit, source) => {
-    const h = fit(source, source.map((p) => ({ x: 2 * p.x + 1, y: 3 * p.y - 2 })));
+  ])('when fitting %s, then the fit is null', (_label, fitMap, source) => {
+    const h = fitMap(source, source.map((p) => ({ x: 2 * p.x + 1, y: 3 * p.y - 2 })));
 
     expect(h).toBeNull();
   });

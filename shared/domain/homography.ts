@@ -55,10 +55,10 @@ function normalisingTransform(points: PlanePoint[]): number[] {
 }
 
 /** Fits in normalised coordinates, then maps the result back: H = T_dst⁻¹ · Hn · T_src. */
-function fitNormalised(source: PlanePoint[], target: PlanePoint[], fit: (s: PlanePoint[], t: PlanePoint[]) => number[] | null): number[] | null {
+function fitNormalised(source: PlanePoint[], target: PlanePoint[], fitMap: (s: PlanePoint[], t: PlanePoint[]) => number[] | null): number[] | null {
   const tSource = normalisingTransform(source);
   const tTarget = normalisingTransform(target);
-  const hn = fit(source.map((p) => applyHomography(tSource, p)), target.map((p) => applyHomography(tTarget, p)));
+  const hn = fitMap(source.map((p) => applyHomography(tSource, p)), target.map((p) => applyHomography(tTarget, p)));
   const tTargetInverse = invert3x3(tTarget);
   if (hn === null || tTargetInverse === null) return null;
   return normaliseScale(multiply3x3(tTargetInverse, multiply3x3(hn, tSource)));
