@@ -15,6 +15,11 @@ import * as intakeService from './intake.service';
 /** Largest inventory CSV body (a few thousand rows). */
 const INVENTORY_BODY_LIMIT = '5mb';
 
+/** Set once the file is handed to intakeService.receiveFile, which records its outcome from then on. */
+interface FileLocals extends Record<string, unknown> {
+  isWithService?: boolean;
+}
+
 const batchId = (value: unknown) => parsePathId(value, 'intake_batch_not_found', 'intake batch');
 
 function parseLabel(body: unknown): string {
@@ -40,12 +45,13 @@ export function intakeRoutes(deps: AppDeps): Router {
     res.json(await intakeService.getBatchDetail(db, batchId(req.params.batchId)));
   });
 
-  // A refused file is recorded in the batch before the usual error answer; a request the client broke
-  // off is not (no one is there to read it, and nothing of it was kept).
-  const recordRefusedFile: ErrorRequestHandler = (err, req, _res, next) => {
+  // A file refused before it reached the service (too large, bad fields, no file part) is recorded here,
+  // before the usual error answer; the service records what it refuses itself. An upload the client broke
+  // off is not recorded: nothing of it was received or kept.
+  const recordRefusedFile: ErrorRequestHandler = (err, req, res: Response<unknown, FileLocals>, next) => {
     const known = knownError(err, config.maxUploadBytes);
     const id = req.params['batchId'];
-    if (!known || req.readableAborted || req.socket.destroyed || typeof id !== 'string' || known.code === 'intake_batch_not_found') {
+    if (!known || res.locals.isWithService || req.readableAborted || req.socket.destroyed || typeof id !== 'string' || known.code === 'intake_batch_not_found') {
       next(err);
       return;
     }
@@ -60,10 +66,11 @@ export function intakeRoutes(deps: AppDeps): Router {
       next();
     },
     receiveScanFile(storage, config.maxUploadBytes),
-    async (req: Request, res: Response<IntakeFileResult>) => {
+    async (req: Request, res: Response<IntakeFileResult, FileLocals>) => {
       const file = uploadedFile(req);
       const fields = parseIntakeFields(req.body, file !== undefined);
       const received = { tempPath: file!.path, originalName: file!.originalname, sha256: file!.sha256 };
+      res.locals.isWithService = true;
       res.status(HTTP.created).json(await intakeService.receiveFile(deps, batchId(req.params.batchId), received, fields, signedInPerson(req.user).id));
     },
     recordRefusedFile,

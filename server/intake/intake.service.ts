@@ -45,21 +45,33 @@ export async function getBatchDetail(db: Db, batchId: string): Promise<IntakeBat
 }
 
 /**
- * Stores one file of a batch and records it as stored. A refusal (a duplicate is 409 duplicate_scan, whose
- * details name the scan holding the bytes) is thrown; the route records it with recordRefusal.
+ * Stores one file of a batch and records its outcome: stored, or the refusal (a duplicate is 409
+ * duplicate_scan, whose details name the scans holding the bytes), which is recorded and then thrown.
+ * It is recorded here, where it is decided, so it stands whether the copy lost at the hash lookup or at
+ * the unique index, and whether or not the client is still waiting for the answer.
  */
 export async function receiveFile(deps: ScanDeps, batchId: string, file: ReceivedFile, fields: ParsedUploadFields, personId: string): Promise<IntakeFileResult> {
   await getBatch(deps.db, batchId);
-  const scans = await uploadMaster(deps, file, { ...fields, batchId }, personId);
+  const scans = await uploadMaster(deps, file, { ...fields, batchId }, personId).catch(async (error: unknown) => {
+    // A vanished batch has nothing to record against; a fault of ours (not an AppError) is no refusal.
+    if (error instanceof AppError && error.code !== 'intake_batch_not_found') await recordRefusal(deps.db, batchId, file.originalName, error);
+    throw error;
+  });
   const scanIds = scans.map((scan) => scan.id);
   await intakeRepository.insertFileRecord(deps.db, { batchId, fileName: file.originalName, outcome: 'stored', reason: null, code: null, scanIds });
   return { fileName: file.originalName, outcome: 'stored', scans };
 }
 
-/** Records a refused file in the batch summary (a duplicate names the scan already holding its bytes). */
+/** The scans a duplicate_scan refusal names, every page of the existing master (older errors named only the first). */
+function existingScanIdsOf(error: AppError): string[] {
+  const details = error.details as { existingScanIds?: string[]; existingScanId?: string } | undefined;
+  if (details?.existingScanIds && details.existingScanIds.length > 0) return details.existingScanIds;
+  return details?.existingScanId ? [details.existingScanId] : [];
+}
+
+/** Records a refused file in the batch summary (a duplicate names the scans already holding its bytes). */
 export async function recordRefusal(db: Db, batchId: string, fileName: string, error: AppError): Promise<void> {
   const isDuplicate = error.code === 'duplicate_scan';
-  const existingScanId = isDuplicate ? (error.details as { scanId?: string } | undefined)?.scanId : undefined;
   await intakeRepository
     .insertFileRecord(db, {
       batchId,
@@ -67,7 +79,7 @@ export async function recordRefusal(db: Db, batchId: string, fileName: string, e
       outcome: isDuplicate ? 'duplicate' : 'rejected',
       reason: error.message,
       code: error.code as ApiErrorCode,
-      scanIds: existingScanId ? [existingScanId] : [],
+      scanIds: isDuplicate ? existingScanIdsOf(error) : [],
     })
     .catch((recordError: unknown) => {
       // The batch was removed meanwhile: there is nothing to record against, and the refusal still stands.

@@ -26,9 +26,17 @@ export interface ParsedUploadFields {
   batchId?: string;
 }
 
-export function duplicateScan(scanId: string | undefined): AppError {
-  return new AppError(HTTP.conflict, 'duplicate_scan', 'This file has been uploaded before.', { scanId, existingScanId: scanId });
+/**
+ * 409 duplicate_scan naming the scans that already hold these bytes (one per page of their master):
+ * `existingScanId` (and the older `scanId`) is the first page, `existingScanIds` every page.
+ */
+export function duplicateScan(existingScanIds: string[]): AppError {
+  const first = existingScanIds[0];
+  return new AppError(HTTP.conflict, 'duplicate_scan', 'This file has been uploaded before.', { scanId: first, existingScanId: first, existingScanIds });
 }
+
+/** Thrown inside the insert transaction when a copy committed first, to roll it back; answered as duplicateScan outside. */
+class LostToCopy extends Error {}
 
 /**
  * Keeps an uploaded master: checks station and chart form, reads the type and pages from the bytes (refusing
@@ -49,8 +57,8 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
     if (fields.chartFormId) await chartFormsService.getChartForm(db, fields.chartFormId);
     const master = await inspectMaster(file.tempPath);
     const sha256 = file.sha256 ?? (await sha256OfFile(file.tempPath));
-    const existingId = await scansRepository.findScanIdBySha256(db, sha256);
-    if (existingId) throw duplicateScan(existingId);
+    const existingIds = await scansRepository.findScanIdsBySha256(db, sha256);
+    if (existingIds.length > 0) throw duplicateScan(existingIds);
     await decodeRasterPages(file.tempPath, master, previewTempOf);
     const { size: sizeBytes } = await fs.stat(file.tempPath);
 
@@ -80,21 +88,29 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
         original_name: file.originalName,
         uploaded_by: uploadedBy,
       }));
-      const scanIds = await db.transaction().execute(async (trx) => {
-        const inserted = await scansRepository.insertScans(trx, rows);
-        if ('duplicateOf' in inserted) throw duplicateScan(await scansRepository.findScanIdBySha256(db, sha256));
-        await auditRepository.insertScanAudit(
-          trx,
-          ...inserted.scanIds.map((scanId, pageIndex) => ({
-            scanId,
-            personId: uploadedBy,
-            action: 'upload' as const,
-            changes: { originalName: { before: null, after: file.originalName }, pageIndex: { before: null, after: pageIndex }, status: { before: null, after: rows[pageIndex].status } },
-          })),
-        );
-        await deps.jobs.enqueue(trx, inserted.scanIds);
-        return inserted.scanIds;
-      });
+      const scanIds = await db
+        .transaction()
+        .execute(async (trx) => {
+          const inserted = await scansRepository.insertScans(trx, rows);
+          if ('duplicateOf' in inserted) throw new LostToCopy();
+          await auditRepository.insertScanAudit(
+            trx,
+            ...inserted.scanIds.map((scanId, pageIndex) => ({
+              scanId,
+              personId: uploadedBy,
+              action: 'upload' as const,
+              changes: { originalName: { before: null, after: file.originalName }, pageIndex: { before: null, after: pageIndex }, status: { before: null, after: rows[pageIndex].status } },
+            })),
+          );
+          await deps.jobs.enqueue(trx, inserted.scanIds);
+          return inserted.scanIds;
+        })
+        .catch(async (error: unknown) => {
+          // The winner is looked up after the rollback: its rows are committed by now (that is why the unique
+          // index refused ours), and this request holds no pooled connection while it asks for another.
+          if (error instanceof LostToCopy) throw duplicateScan(await scansRepository.findScanIdsBySha256(db, sha256));
+          throw error;
+        });
       for (const [pageIndex, tempPath] of previewTemps) await storage.putCache(tempPath, storage.previewKey(sha256, pageIndex));
       const scans: ScanDetail[] = [];
       for (const scanId of scanIds) scans.push((await scansRepository.findScanById(db, scanId)) as ScanDetail);

@@ -110,6 +110,12 @@ export async function findScanIdBySha256(db: DbOrTrx, sha256: string): Promise<s
   return row?.id;
 }
 
+/** Every page's scan of a master, by the master's hash, first page first (empty when the bytes are new). */
+export async function findScanIdsBySha256(db: DbOrTrx, sha256: string): Promise<string[]> {
+  const rows = await db.selectFrom('scan').select('id').where('sha256', '=', sha256).orderBy('page_index').execute();
+  return rows.map((row) => row.id);
+}
+
 /** Where a scan's master is stored and which page of it the scan is. */
 export interface ScanFile {
   storageKey: string;

@@ -7,6 +7,8 @@ import { API, IIIF } from '@shared/api/routes';
 import { createChartForm, createPerson, createStation, type TestPerson } from '../helpers/factories';
 import { makeGifBytes, makeJpeg, makePng, makeTruncatedPng } from '../helpers/images';
 import { makeBombPng, makeEmptyPdf, makeEncryptedPdf, makeJpegWithDpi, makeMultiPageTiff, makeScannedPdf } from '../helpers/scan-files';
+import { listenOnLoopback, sendWholeFile } from '../helpers/raw-upload';
+import { closeScanTableGate } from '../helpers/scan-table-gate';
 import { clearStorage, createTestContext, listFiles, type TestContext, truncateTables } from '../helpers/test-app';
 
 // PDF pages are read in a child process and derivatives are made in the background: seconds, not milliseconds.
@@ -215,6 +217,99 @@ describe('intake batches', () => {
     const masterKey = await context.db.selectFrom('scan').select('storage_key').executeTakeFirstOrThrow();
     expect(await listFiles(path.join(context.storage.rootDir, 'masters'))).toEqual([masterKey.storage_key.replace('masters/', '')]);
     expect(stored.body.scans).toHaveLength(2);
+  });
+
+  it('when two copies both pass the hash lookup and one loses at the unique index, then the batch records it as a duplicate of the winner', async () => {
+    const tiff = await makeMultiPageTiff(2);
+    const gate = await closeScanTableGate(context.config.databaseUrl, 'inserts');
+    const sending = Promise.all([sendFile(tiff, 'twin-a.tif'), sendFile(tiff, 'twin-b.tif')].map((call) => call.then((response) => response)));
+    await gate.waitForWaiting(2);
+
+    await gate.open();
+    const responses = await sending;
+
+    const stored = responses.find((response) => response.status === 201)!;
+    const refused = responses.find((response) => response.status === 409)!;
+    const winnerIds = stored.body.scans.map((scan: { id: string }) => scan.id);
+    expect(refused.body.error.details).toMatchObject({ existingScanId: winnerIds[0], existingScanIds: winnerIds });
+    const detail = await batchDetail();
+    expect(detail.counts).toEqual({ stored: 1, duplicate: 1, rejected: 0 });
+    expect(detail.fileCount).toBe(2);
+    const loserName = stored.body.fileName === 'twin-a.tif' ? 'twin-b.tif' : 'twin-a.tif';
+    expect(detail.files).toEqual(
+      expect.arrayContaining([
+        expect.objectContaining({ fileName: stored.body.fileName, outcome: 'stored', scanIds: winnerIds }),
+        expect.objectContaining({ fileName: loserName, outcome: 'duplicate', code: 'duplicate_scan', reason: refused.body.error.message, scanIds: winnerIds }),
+      ]),
+    );
+  });
+
+  describe('when the client hangs up before the answer', () => {
+    let listening: { port: number; close(): Promise<void> };
+
+    /** File records of the batch once there are `count` (the server finishes on its own after the client has gone). */
+    async function fileRecordsOnceThere(count: number, timeoutMs = 10_000) {
+      const deadline = Date.now() + timeoutMs;
+      let files = (await batchDetail()).files;
+      while (files.length < count && Date.now() < deadline) {
+        await new Promise((resolve) => setTimeout(resolve, 50));
+        files = (await batchDetail()).files;
+      }
+      return files;
+    }
+
+    beforeEach(async () => {
+      listening = await listenOnLoopback(context.app);
+    });
+
+    afterEach(async () => {
+      await listening.close();
+    });
+
+    it('when two copies meet at the unique index and both clients have gone, then the batch still records one stored and one duplicate', async () => {
+      const tiff = await makeMultiPageTiff(2);
+      const gate = await closeScanTableGate(context.config.databaseUrl, 'inserts');
+      const uploads = [await sendWholeFile(listening.port, API.intakeBatchFiles(batchId), archivist.token, tiff, 'twin-a.tif'), await sendWholeFile(listening.port, API.intakeBatchFiles(batchId), archivist.token, tiff, 'twin-b.tif')];
+      await gate.waitForWaiting(2);
+      for (const upload of uploads) upload.hangUp();
+
+      await gate.open();
+      const files = await fileRecordsOnceThere(2);
+
+      const scanIds = (await context.db.selectFrom('scan').select('id').orderBy('page_index').execute()).map((row) => row.id);
+      expect(scanIds).toHaveLength(2);
+      expect(files.map((file) => file.outcome).sort()).toEqual(['duplicate', 'stored']);
+      expect(files.find((file) => file.outcome === 'duplicate')).toMatchObject({ code: 'duplicate_scan', scanIds });
+      expect((await batchDetail()).counts).toEqual({ stored: 1, duplicate: 1, rejected: 0 });
+    });
+
+    it('when a copy is refused at the hash lookup after its client has gone, then the batch still records it as a duplicate', async () => {
+      const png = await makePng();
+      const first = await sendFile(png, 'kro-1931-w10.png');
+      const gate = await closeScanTableGate(context.config.databaseUrl, 'reads');
+      const copy = await sendWholeFile(listening.port, API.intakeBatchFiles(batchId), archivist.token, png, 'kro-1931-w10-copy.png');
+      await gate.waitForWaiting(1);
+      copy.hangUp();
+
+      await gate.open();
+      const files = await fileRecordsOnceThere(2);
+
+      expect(files[1]).toMatchObject({ fileName: 'kro-1931-w10-copy.png', outcome: 'duplicate', code: 'duplicate_scan', scanIds: [first.body.scans[0].id] });
+      expect(await scanCount()).toBe(1);
+    });
+
+    it('when a file is refused as damaged after its client has gone, then the batch still records it as rejected', async () => {
+      const gate = await closeScanTableGate(context.config.databaseUrl, 'reads');
+      const cut = await sendWholeFile(listening.port, API.intakeBatchFiles(batchId), archivist.token, await makeTruncatedPng(), 'cut.png');
+      await gate.waitForWaiting(1);
+      cut.hangUp();
+
+      await gate.open();
+      const files = await fileRecordsOnceThere(1);
+
+      expect(files).toEqual([expect.objectContaining({ fileName: 'cut.png', outcome: 'rejected', code: 'corrupt_image', scanIds: [] })]);
+      expect(await scanCount()).toBe(0);
+    });
   });
 
   it('when the batch does not exist, then the file is refused with 404 before it streams in', async () => {
