@@ -4,6 +4,7 @@ import type { PageQuery } from '@shared/api/paging';
 import { sql } from 'kysely';
 import type { DbOrTrx } from '../db/database';
 import type { InventoryRow } from './inventory-csv';
+import type { ExistingScan } from './match-inventory';
 
 const SORT_COLUMNS = { createdAt: 'intake_batch.created_at', label: 'intake_batch.label' } as const;
 
@@ -96,4 +97,41 @@ export async function saveInventory(db: DbOrTrx, batchId: string, rows: Inventor
 /** Locks the batch row, so two inventory imports of one batch run one after the other. */
 export async function lockBatch(db: DbOrTrx, batchId: string): Promise<boolean> {
   return (await db.selectFrom('intake_batch').select('id').where('id', '=', batchId).forUpdate().executeTakeFirst()) !== undefined;
+}
+
+/** The batch's files refused as duplicates, with the scan ids their records name, oldest first. */
+export async function listDuplicateFiles(db: DbOrTrx, batchId: string): Promise<{ fileName: string; scanIds: string[] }[]> {
+  const rows = await db
+    .selectFrom('intake_file')
+    .select(['file_name', 'scan_ids'])
+    .where('batch_id', '=', batchId)
+    .where('outcome', '=', 'duplicate')
+    .orderBy('at')
+    .orderBy('id')
+    .execute();
+  return rows.map((row) => ({ fileName: row.file_name, scanIds: row.scan_ids }));
+}
+
+/**
+ * For each given scan, every page's scan of the same master with the batch it came in by (first page first):
+ * a duplicate's record may name only the first page.
+ */
+export async function findScansSharingMaster(db: DbOrTrx, scanIds: string[]): Promise<Map<string, ExistingScan[]>> {
+  const found = new Map<string, ExistingScan[]>();
+  if (scanIds.length === 0) return found;
+  const rows = await db
+    .selectFrom('scan as named')
+    .innerJoin('scan', 'scan.sha256', 'named.sha256')
+    .leftJoin('intake_batch', 'intake_batch.id', 'scan.batch_id')
+    .select(['named.id as named_id', 'scan.id', 'scan.original_name', 'scan.batch_id', 'intake_batch.label'])
+    .where('named.id', 'in', scanIds)
+    .orderBy('named.id')
+    .orderBy('scan.page_index')
+    .execute();
+  for (const row of rows) {
+    const pages = found.get(row.named_id) ?? [];
+    pages.push({ id: row.id, originalName: row.original_name, batchId: row.batch_id, batchLabel: row.label });
+    found.set(row.named_id, pages);
+  }
+  return found;
 }

@@ -14,7 +14,7 @@ import * as scansService from '../scans/scans.service';
 import * as stationsRepository from '../stations/stations.repository';
 import * as intakeRepository from './intake.repository';
 import { parseInventoryCsv, type InventoryRow } from './inventory-csv';
-import { matchInventory } from './match-inventory';
+import { duplicateNote, matchInventory, type DuplicateFile } from './match-inventory';
 import { readWrittenTime } from './written-time';
 
 function batchNotFound(): AppError {
@@ -137,10 +137,22 @@ function metadataFromRow(scan: { version: number }, resolved: { row: InventoryRo
   return input;
 }
 
+/** The batch's duplicate files with the scans holding their bytes (every page) and the note a row naming one gets. */
+async function findDuplicateFiles(db: DbOrTrx, batchId: string): Promise<DuplicateFile[]> {
+  const records = await intakeRepository.listDuplicateFiles(db, batchId);
+  const existing = await intakeRepository.findScansSharingMaster(db, [...new Set(records.flatMap((record) => record.scanIds.slice(0, 1)))]);
+  return records.map((record) => {
+    const pages = record.scanIds.length > 0 ? (existing.get(record.scanIds[0]) ?? []) : [];
+    return { fileName: record.fileName, existingScanIds: pages.map((page) => page.id), note: pages.length > 0 ? duplicateNote(record.fileName, pages[0], batchId) : '' };
+  });
+}
+
 /**
  * Imports a box inventory for a batch: matches rows to the batch's files by name, fills the matched scans'
- * metadata (audited as 'inventory'), and lists rows without a file and files without a row. All or nothing:
- * one transaction, and any bad row refuses the whole import.
+ * metadata (audited as 'inventory'), and lists rows without a file and files without a row. A row naming a
+ * file refused as a duplicate is matched to the scans holding its bytes, with a note, and fills nothing:
+ * those scans have a name and a record of their own (maybe another batch's, maybe already catalogued), so
+ * the archivist decides. All or nothing: one transaction, and any bad row refuses the whole import.
  */
 export async function importInventory(db: Db, batchId: string, csvText: string, personId: string): Promise<InventoryMatch> {
   const rows = parseInventoryCsv(csvText);
@@ -148,8 +160,9 @@ export async function importInventory(db: Db, batchId: string, csvText: string, 
     if (!(await intakeRepository.lockBatch(trx, batchId))) throw batchNotFound();
     const resolved = await resolveRows(trx, rows);
     const scans: ScanSummary[] = await scansRepository.findScansInBatch(trx, batchId);
-    const match = matchInventory(rows, scans);
+    const match = matchInventory(rows, scans, await findDuplicateFiles(trx, batchId));
     for (const matched of match.matched) {
+      if (matched.duplicateOf) continue;
       const source = resolved.get(matched.line)!;
       for (const scanId of matched.scanIds) {
         const current = await scansRepository.lockScan(trx, scanId);

@@ -1,6 +1,6 @@
 import { AppError } from '../errors/app-error';
 import { parseCsvRecords, parseInventoryCsv } from './inventory-csv';
-import { matchInventory } from './match-inventory';
+import { duplicateNote, matchInventory } from './match-inventory';
 
 describe('parseCsvRecords', () => {
   it('when fields are quoted with commas, doubled quotes and line breaks, then they come back whole with their first line', () => {
@@ -56,5 +56,58 @@ describe('matchInventory', () => {
       ],
       filesWithoutRow: [{ fileName: 'other.png', scanIds: ['other'] }],
     });
+  });
+});
+
+describe('matchInventory with duplicates', () => {
+  const scans = [{ id: 'w10', originalName: 'kro-w10.png' }];
+  const copy = { fileName: 'kro-w10-copy.png', existingScanIds: ['w10'], note: 'refused as a duplicate of scan w10' };
+
+  it('when a row names a file refused as a duplicate, then it matches the scans holding the bytes with the note', () => {
+    const rows = parseInventoryCsv('file name\nKRO-W10-COPY\n');
+
+    const match = matchInventory(rows, scans, [copy]);
+
+    expect(match.matched).toEqual([{ line: 2, fileName: 'KRO-W10-COPY', scanIds: ['w10'], duplicateOf: 'w10', note: copy.note }]);
+    expect(match.rowsWithoutFile).toEqual([]);
+    expect(match.filesWithoutRow).toEqual([{ fileName: 'kro-w10.png', scanIds: ['w10'] }]);
+  });
+
+  it('when a stored file and a duplicate share a name, then the row matches the stored file', () => {
+    const rows = parseInventoryCsv('file name\nkro-w10.png\n');
+
+    const match = matchInventory(rows, scans, [{ ...copy, fileName: 'kro-w10.png' }]);
+
+    expect(match.matched).toEqual([{ line: 2, fileName: 'kro-w10.png', scanIds: ['w10'] }]);
+  });
+
+  it('when the duplicate names no existing scan, then its row is a row without a file', () => {
+    const rows = parseInventoryCsv('file name\nkro-w10-copy.png\n');
+
+    const match = matchInventory(rows, scans, [{ ...copy, existingScanIds: [] }]);
+
+    expect(match.rowsWithoutFile).toEqual([{ line: 2, fileName: 'kro-w10-copy.png' }]);
+  });
+
+  it('when two files share a stem, then a row without extension matches only the first, not both', () => {
+    const rows = parseInventoryCsv('file name\nkro-w11\n');
+
+    const match = matchInventory(rows, [{ id: 'tif', originalName: 'kro-w11.tif' }, { id: 'png', originalName: 'kro-w11.png' }]);
+
+    expect(match.matched).toEqual([{ line: 2, fileName: 'kro-w11', scanIds: ['tif'] }]);
+    expect(match.filesWithoutRow).toEqual([{ fileName: 'kro-w11.png', scanIds: ['png'] }]);
+  });
+});
+
+describe('duplicateNote', () => {
+  it.each([
+    ['the same batch', { batchId: 'b1', batchLabel: 'Box 14' }, 'stored in this batch'],
+    ['another batch', { batchId: 'b0', batchLabel: 'Box 9' }, 'stored in the batch "Box 9"'],
+    ['no batch', { batchId: null, batchLabel: null }, 'uploaded outside any batch'],
+  ])('when the existing scan came in by %s, then the note says where and that nothing was applied', (_case, where, expected) => {
+    const note = duplicateNote('copy.png', { id: 's1', originalName: 'kro-w10.png', ...where }, 'b1');
+
+    expect(note).toContain('duplicate of scan s1 (kro-w10.png, ' + expected + ')');
+    expect(note).toContain('applied to no scan');
   });
 });

@@ -67,7 +67,7 @@ export interface IntakeFileResult {
   reason?: string;
   code?: ApiErrorCode;
   scans: ScanSummary[];
-  /** For a duplicate: the scan already holding these bytes. */
+  /** For a duplicate: the scan already holding these bytes (the 409's details also carry `existingScanIds`, every page). */
   existingScanId?: string;
 }
 
@@ -77,9 +77,21 @@ export type InventoryColumn = (typeof INVENTORY_COLUMNS)[number];
 /** Further header names an inventory may carry; only `file name` is required, unknown columns are ignored. */
 export const INVENTORY_OPTIONAL_COLUMNS = ['collection', 'item', 'observer', 'tags'] as const;
 
+/** A row of the inventory matched to a file of the batch. */
+export interface InventoryMatchedRow {
+  line: number;
+  fileName: string;
+  /** The file's scans (one per page); for a file refused as a duplicate, the scans already holding its bytes. */
+  scanIds: string[];
+  /** Set when the row names a file refused as a duplicate: the scan (first page) already holding its bytes. The row's metadata was applied to no scan. */
+  duplicateOf?: string;
+  /** For such a row, a sentence for the archivist naming that scan, where it was stored, and that nothing was filled. */
+  note?: string;
+}
+
 /** Answer of POST /api/intake/batches/:id/inventory (body text/csv). `line` counts from 1 at the header row. */
 export interface InventoryMatch {
-  matched: { line: number; fileName: string; scanIds: string[] }[];
+  matched: InventoryMatchedRow[];
   rowsWithoutFile: { line: number; fileName: string }[];
   filesWithoutRow: { fileName: string; scanIds: string[] }[];
 }

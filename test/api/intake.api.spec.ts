@@ -354,6 +354,9 @@ describe('intake batches', () => {
   });
 
   describe('inventory', () => {
+    /** The bytes storeFiles sent, by file name (to send a copy). */
+    const sentBytes: Record<string, Buffer> = {};
+
     async function storeFiles(): Promise<Record<string, string[]>> {
       const ids: Record<string, string[]> = {};
       for (const [fileName, file] of [
@@ -363,6 +366,7 @@ describe('intake batches', () => {
       ] as const) {
         const response = await sendFile(file, fileName);
         ids[fileName] = response.body.scans.map((scan: { id: string }) => scan.id);
+        sentBytes[fileName] = file;
       }
       return ids;
     }
@@ -402,6 +406,52 @@ describe('intake batches', () => {
       expect(audit.person_id).toBe(archivist.id);
       expect(audit.changes).toMatchObject({ stationId: { before: null, after: station.id }, box: { before: '', after: '14' } });
       expect((await batchDetail()).hasInventory).toBe(true);
+    });
+
+    it('when rows name files refused as duplicates, then they are matched to the scans holding the bytes with a note, and fill nothing', async () => {
+      await createStation(context.db, { code: 'KRO' });
+      const ids = await storeFiles();
+      const earlierBatch = await request(context.app).post(API.intakeBatches).set('Authorization', `Bearer ${archivist.token}`).send({ label: 'Box 9, Kestrel Ridge 1930' });
+      const tiff = await makeMultiPageTiff(2);
+      const earlier = await sendFile(tiff, 'kro-1930-ledger.tif', {}, earlierBatch.body.id);
+      const earlierIds = earlier.body.scans.map((scan: { id: string }) => scan.id);
+      expect((await sendFile(sentBytes['KRO-1931-w10.png'], 'kro-1931-w10-copy.png')).status).toBe(409);
+      expect((await sendFile(tiff, 'ledger-rescan.tif')).status).toBe(409);
+      const csv = [
+        'file name,station,chart on,box,folder',
+        'KRO-1931-w10.png,KRO,1931-03-02 08:00,14,3',
+        'kro-1931-w10-copy.png,KRO,1931-03-09 08:00,14,4',
+        'ledger-rescan,KRO,1930-01-06 08:00,14,5',
+      ].join('\n');
+
+      const response = await sendInventory(csv);
+
+      expect(response.status).toBe(200);
+      const match = response.body as InventoryMatch;
+      expect(match.rowsWithoutFile).toEqual([]);
+      expect(match.matched).toEqual([
+        { line: 2, fileName: 'KRO-1931-w10.png', scanIds: ids['KRO-1931-w10.png'] },
+        { line: 3, fileName: 'kro-1931-w10-copy.png', scanIds: ids['KRO-1931-w10.png'], duplicateOf: ids['KRO-1931-w10.png'][0], note: expect.stringContaining('this batch') },
+        { line: 4, fileName: 'ledger-rescan', scanIds: earlierIds, duplicateOf: earlierIds[0], note: expect.stringContaining('Box 9, Kestrel Ridge 1930') },
+      ]);
+      expect(match.matched[1].note).toMatch(/duplicate of scan .*KRO-1931-w10\.png.*applied to no scan/);
+      const stored = await context.db.selectFrom('scan').selectAll().where('id', '=', ids['KRO-1931-w10.png'][0]).executeTakeFirstOrThrow();
+      expect(stored).toMatchObject({ folder: '3', version: 2 });
+      expect(stored.chart_on?.toISOString()).toBe('1931-03-02T08:00:00.000Z');
+      const untouched = await context.db.selectFrom('scan').select(['folder', 'version']).where('id', 'in', earlierIds).execute();
+      expect(untouched).toEqual([{ folder: '', version: 1 }, { folder: '', version: 1 }]);
+      const audits = await context.db.selectFrom('scan_audit').select('scan_id').where('action', '=', 'inventory').execute();
+      expect(audits.map((row) => row.scan_id)).toEqual([ids['KRO-1931-w10.png'][0]]);
+    });
+
+    it('when two rows name the same duplicate file, then the second is a row without a file', async () => {
+      const ids = await storeFiles();
+      await sendFile(sentBytes['KRO-1931-w10.png'], 'copy.png');
+
+      const response = await sendInventory('file name\ncopy.png\ncopy.png\n');
+
+      expect(response.body.matched).toEqual([expect.objectContaining({ line: 2, scanIds: ids['KRO-1931-w10.png'], duplicateOf: ids['KRO-1931-w10.png'][0] })]);
+      expect(response.body.rowsWithoutFile).toEqual([{ line: 3, fileName: 'copy.png' }]);
     });
 
     it('when a row has a bad date, then it answers 400 naming the line and column and changes nothing', async () => {
