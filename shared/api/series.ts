@@ -7,6 +7,9 @@ export interface SeriesPoint {
   time: string;
   pressureHpa: number;
   flag: SeriesFlag;
+  /** Standard uncertainty (1σ) of pressureHpa, hPa; null when none is known (an off-scale bound, or an older trace). */
+  uncertaintyHpa: number | null;
+  /** The ink line this point was taken from (provenance); where several cover the time, the chosen one. */
   inkLineId: string;
 }
 
@@ -14,13 +17,16 @@ export interface SeriesResponse {
   stationId: string;
   from: string;
   to: string;
+  /** The station series: one point per time, in time order. */
   points: SeriesPoint[];
   /** True when more points exist in the range than `limit` allowed; narrow the range. */
   truncated: boolean;
+  /** How many ink lines were merged into these points (chosen at some time or compared against the chosen one). */
+  sourceCount: number;
 }
 
 /** Largest number of points one series request returns; the CSV export streams without this cap. */
 export const SERIES_POINT_LIMIT = 20000;
 
 /** The CSV header the export writes, in order. */
-export const SERIES_CSV_HEADER = ['time', 'pressure_hpa', 'flag', 'ink_line_id'] as const;
+export const SERIES_CSV_HEADER = ['time', 'pressure_hpa', 'flag', 'uncertainty_hpa', 'ink_line_id'] as const;

@@ -137,7 +137,7 @@ describe('one chart from upload to station series', () => {
     // Assert: hourly rows between the first and last knot, each within 0.6 hPa of the invented truth
     // (a click lands within half a screen pixel, about 0.15 hPa at this scale; the straight segments between
     // two-hourly knots cut the curve's corners by a few tenths).
-    expect(rows[0]).toEqual(['time', 'pressure_hpa', 'flag', 'ink_line_id']);
+    expect(rows[0]).toEqual(['time', 'pressure_hpa', 'flag', 'uncertainty_hpa', 'ink_line_id']);
     const body = rows.slice(1);
     // The first and last knot land a few seconds either side of their hour, so one end hour may drop out.
     const spanHours = knotHours[knotHours.length - 1] - knotHours[0] + 1;
