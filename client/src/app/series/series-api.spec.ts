@@ -33,6 +33,6 @@ describe('SeriesApi', () => {
 
     expect(request.request.responseType).toBe('blob');
     expect(request.request.params.get('to')).toBe('2026-03-09');
-    request.flush(new Blob(['time,pressure_hpa,flag,ink_line_id\n']));
+    request.flush(new Blob(['time,pressure_hpa,flag,uncertainty_hpa,ink_line_id\n']));
   });
 });

@@ -28,7 +28,7 @@ function orderedDaysValidator(group: AbstractControl): ValidationErrors | null {
   return fromMs !== null && toMs !== null && toMs < fromMs ? { daysReversed: true } : null;
 }
 
-/** The station series of one station over chosen UTC days: plot, point count and CSV download. */
+/** The station series of one station over chosen UTC days: plot with its uncertainty band, point and ink-line counts, CSV download. */
 @Component({
   selector: 'isl-series-page',
   imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatProgressBarModule, PressurePlot],
@@ -56,6 +56,10 @@ export class SeriesPage {
   protected readonly isLoading = signal(false);
   protected readonly failure = signal<string | null>(null);
   protected readonly isDownloading = signal(false);
+  protected readonly sourceCountText = computed(() => {
+    const count = this.series()?.sourceCount ?? 0;
+    return `merged from ${count} ink ${count === 1 ? 'line' : 'lines'}`;
+  });
   protected readonly timeDomainMs = computed(() => {
     const range = this.shownRange();
     return range ? rangeInstantsMs(range) : undefined;

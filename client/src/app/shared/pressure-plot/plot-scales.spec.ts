@@ -4,8 +4,8 @@ import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type Plot
 
 const BOX: PlotBox = { width: 1000, height: 500, marginLeft: 50, marginRight: 50, marginTop: 0, marginBottom: 100 };
 
-function point(time: string, pressureHpa: number, flag: SeriesFlag = 'ok'): SeriesPoint {
-  return { time, pressureHpa, flag, inkLineId: 'ink-1' };
+function point(time: string, pressureHpa: number, flag: SeriesFlag = 'ok', uncertaintyHpa: number | null = null): SeriesPoint {
+  return { time, pressureHpa, flag, uncertaintyHpa, inkLineId: 'ink-1' };
 }
 
 describe('createPlotScales', () => {
@@ -36,6 +36,16 @@ describe('createPlotScales', () => {
     const { y } = createPlotScales(points, BOX);
 
     expect(y.domain()).toEqual([1000, 1020]);
+  });
+
+  it('when points carry an uncertainty, then the pressure axis holds the whole band', () => {
+    const points = [point('2026-03-02T00:00:00Z', 1000, 'ok', 3), point('2026-03-03T00:00:00Z', 1020, 'ok', 3)];
+
+    const { y } = createPlotScales(points, BOX);
+
+    const [lowHpa, highHpa] = y.domain();
+    expect(lowHpa).toBeLessThanOrEqual(997);
+    expect(highHpa).toBeGreaterThanOrEqual(1023);
   });
 
   it('when the week is calm, then at least 10 hPa are shown around it', () => {

@@ -20,16 +20,17 @@ export interface PlotScales {
 const MIN_SPAN_HPA = 10;
 
 /**
- * Time (UTC) → x and pressure (hPa) → y for the given points. Gap points carry no pressure and do not
- * widen the pressure domain. With no usable points the domain is a neutral 1000–1020 hPa.
+ * Time (UTC) → x and pressure (hPa) → y for the given points, with room for each point's uncertainty band.
+ * Gap points carry no pressure and do not widen the pressure domain. With no usable points the domain is a neutral 1000–1020 hPa.
  */
 export function createPlotScales(points: readonly SeriesPoint[], box: PlotBox, timeDomainMs?: [number, number]): PlotScales {
   const measured = points.filter((point) => point.flag !== 'gap' && Number.isFinite(point.pressureHpa));
   const timesMs = points.map((point) => Date.parse(point.time));
   const startMs = timeDomainMs?.[0] ?? (timesMs.length ? Math.min(...timesMs) : 0);
   const endMs = timeDomainMs?.[1] ?? (timesMs.length ? Math.max(...timesMs) : 1);
-  let lowHpa = measured.length ? Math.min(...measured.map((point) => point.pressureHpa)) : 1000;
-  let highHpa = measured.length ? Math.max(...measured.map((point) => point.pressureHpa)) : 1020;
+  // The axis holds the whole uncertainty band, not only the line.
+  let lowHpa = measured.length ? Math.min(...measured.map((point) => point.pressureHpa - (point.uncertaintyHpa ?? 0))) : 1000;
+  let highHpa = measured.length ? Math.max(...measured.map((point) => point.pressureHpa + (point.uncertaintyHpa ?? 0))) : 1020;
   if (highHpa - lowHpa < MIN_SPAN_HPA) {
     const middleHpa = (highHpa + lowHpa) / 2;
     lowHpa = middleHpa - MIN_SPAN_HPA / 2;

@@ -2,12 +2,16 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { SeriesPoint } from '@shared/api/series';
 
 import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type PlotBox } from './plot-scales';
+import { buildUncertaintyBandPath } from './uncertainty-band';
 
 const BOX: PlotBox = { width: 960, height: 360, marginLeft: 56, marginRight: 16, marginTop: 12, marginBottom: 36 };
 // A step more than this many typical steps long is treated as missing data.
 const GAP_FACTOR = 3;
 
-/** Pressure (hPa) against time (UTC) as SVG: axes with ticks, the line with gaps left blank, flagged points marked. */
+/**
+ * Pressure (hPa) against time (UTC) as SVG: axes with ticks, the line with gaps left blank, a light band of
+ * ± one standard uncertainty around it, flagged points marked.
+ */
 @Component({
   selector: 'isl-pressure-plot',
   templateUrl: './pressure-plot.svg',
@@ -21,10 +25,12 @@ export class PressurePlot {
 
   protected readonly box = BOX;
   private readonly scales = computed(() => createPlotScales(this.points(), BOX, this.timeDomainMs()));
-  protected readonly linePath = computed(() => {
+  private readonly maxStepMs = computed(() => {
     const maxStepMs = medianStepMs(this.points()) * GAP_FACTOR;
-    return buildLinePath(this.points(), this.scales(), maxStepMs > 0 ? maxStepMs : Number.POSITIVE_INFINITY);
+    return maxStepMs > 0 ? maxStepMs : Number.POSITIVE_INFINITY;
   });
+  protected readonly linePath = computed(() => buildLinePath(this.points(), this.scales(), this.maxStepMs()));
+  protected readonly bandPath = computed(() => buildUncertaintyBandPath(this.points(), this.scales(), this.maxStepMs()));
   protected readonly xTicks = computed(() => {
     const { x } = this.scales();
     const ticks = x.ticks(8);
