@@ -62,16 +62,18 @@ export async function receiveFile(deps: ScanDeps, batchId: string, file: Receive
   return { fileName: file.originalName, outcome: 'stored', scans };
 }
 
-/** The scans a duplicate_scan refusal names, every page of the existing master (older errors named only the first). */
-function existingScanIdsOf(error: AppError): string[] {
-  const details = error.details as { existingScanIds?: string[]; existingScanId?: string } | undefined;
-  if (details?.existingScanIds && details.existingScanIds.length > 0) return details.existingScanIds;
-  return details?.existingScanId ? [details.existingScanId] : [];
+/** Every page's scan of the master a duplicate_scan refusal names (the error names the first page only). */
+async function existingScanIdsOf(db: Db, error: AppError): Promise<string[]> {
+  const existingScanId = (error.details as { existingScanId?: string } | undefined)?.existingScanId;
+  if (!existingScanId) return [];
+  const pages = await scansRepository.findScanIdsOfSameMaster(db, existingScanId);
+  return pages.length > 0 ? pages : [existingScanId];
 }
 
-/** Records a refused file in the batch summary (a duplicate names the scans already holding its bytes). */
+/** Records a refused file in the batch summary (a duplicate names the scans, every page, already holding its bytes). */
 export async function recordRefusal(db: Db, batchId: string, fileName: string, error: AppError): Promise<void> {
   const isDuplicate = error.code === 'duplicate_scan';
+  const scanIds = isDuplicate ? await existingScanIdsOf(db, error) : [];
   await intakeRepository
     .insertFileRecord(db, {
       batchId,
@@ -79,7 +81,7 @@ export async function recordRefusal(db: Db, batchId: string, fileName: string, e
       outcome: isDuplicate ? 'duplicate' : 'rejected',
       reason: error.message,
       code: error.code as ApiErrorCode,
-      scanIds: isDuplicate ? existingScanIdsOf(error) : [],
+      scanIds,
     })
     .catch((recordError: unknown) => {
       // The batch was removed meanwhile: there is nothing to record against, and the refusal still stands.

@@ -26,13 +26,9 @@ export interface ParsedUploadFields {
   batchId?: string;
 }
 
-/**
- * 409 duplicate_scan naming the scans that already hold these bytes (one per page of their master):
- * `existingScanId` (and the older `scanId`) is the first page, `existingScanIds` every page.
- */
-export function duplicateScan(existingScanIds: string[]): AppError {
-  const first = existingScanIds[0];
-  return new AppError(HTTP.conflict, 'duplicate_scan', 'This file has been uploaded before.', { scanId: first, existingScanId: first, existingScanIds });
+/** 409 duplicate_scan naming the first page's scan of the master that already holds these bytes. */
+export function duplicateScan(existingScanId: string | undefined): AppError {
+  return new AppError(HTTP.conflict, 'duplicate_scan', 'This file has been uploaded before.', { scanId: existingScanId, existingScanId });
 }
 
 /** Thrown inside the insert transaction when a copy committed first, to roll it back; answered as duplicateScan outside. */
@@ -57,8 +53,8 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
     if (fields.chartFormId) await chartFormsService.getChartForm(db, fields.chartFormId);
     const master = await inspectMaster(file.tempPath);
     const sha256 = file.sha256 ?? (await sha256OfFile(file.tempPath));
-    const existingIds = await scansRepository.findScanIdsBySha256(db, sha256);
-    if (existingIds.length > 0) throw duplicateScan(existingIds);
+    const existingId = await scansRepository.findScanIdBySha256(db, sha256);
+    if (existingId) throw duplicateScan(existingId);
     await decodeRasterPages(file.tempPath, master, previewTempOf);
     const { size: sizeBytes } = await fs.stat(file.tempPath);
 
@@ -108,7 +104,7 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
         .catch(async (error: unknown) => {
           // The winner is looked up after the rollback: its rows are committed by now (that is why the unique
           // index refused ours), and this request holds no pooled connection while it asks for another.
-          if (error instanceof LostToCopy) throw duplicateScan(await scansRepository.findScanIdsBySha256(db, sha256));
+          if (error instanceof LostToCopy) throw duplicateScan(await scansRepository.findScanIdBySha256(db, sha256));
           throw error;
         });
       for (const [pageIndex, tempPath] of previewTemps) await storage.putCache(tempPath, storage.previewKey(sha256, pageIndex));

@@ -110,9 +110,15 @@ export async function findScanIdBySha256(db: DbOrTrx, sha256: string): Promise<s
   return row?.id;
 }
 
-/** Every page's scan of a master, by the master's hash, first page first (empty when the bytes are new). */
-export async function findScanIdsBySha256(db: DbOrTrx, sha256: string): Promise<string[]> {
-  const rows = await db.selectFrom('scan').select('id').where('sha256', '=', sha256).orderBy('page_index').execute();
+/** Every page's scan of the master that the given scan is a page of, first page first (empty when there is no such scan). */
+export async function findScanIdsOfSameMaster(db: DbOrTrx, scanId: string): Promise<string[]> {
+  const rows = await db
+    .selectFrom('scan as named')
+    .innerJoin('scan', 'scan.sha256', 'named.sha256')
+    .select('scan.id')
+    .where('named.id', '=', scanId)
+    .orderBy('scan.page_index')
+    .execute();
   return rows.map((row) => row.id);
 }
 

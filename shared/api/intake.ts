@@ -67,7 +67,7 @@ export interface IntakeFileResult {
   reason?: string;
   code?: ApiErrorCode;
   scans: ScanSummary[];
-  /** For a duplicate: the scan already holding these bytes (the 409's details also carry `existingScanIds`, every page). */
+  /** For a duplicate: the scan already holding these bytes. */
   existingScanId?: string;
 }
 
