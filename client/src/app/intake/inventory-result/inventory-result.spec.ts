@@ -57,4 +57,15 @@ describe('InventoryResult', () => {
     expect(element.textContent).toContain('Every row found its file.');
     expect(element.textContent).toContain('Every file has a row.');
   });
+
+  it('when a row names a file that was a duplicate, then the server's note says which scan holds its bytes', () => {
+    const element = render({
+      ...MATCH,
+      matched: [{ line: 5, fileName: 'copy.png', scanIds: ['s-8'], duplicateOf: 's-8', note: 'A copy of scan s-8, stored in this batch; the row was applied to no scan.' }],
+    });
+
+    const note = element.querySelector('[data-testid="inventory-duplicate-note"]');
+
+    expect(note?.textContent).toContain('applied to no scan');
+  });
 });
