@@ -58,7 +58,7 @@ describe('InventoryResult', () => {
     expect(element.textContent).toContain('Every file has a row.');
   });
 
-  it('when a row names a file that was a duplicate, then the server's note says which scan holds its bytes', () => {
+  it('when a row names a file that was a duplicate, then the note from the server says which scan holds its bytes', () => {
     const element = render({
       ...MATCH,
       matched: [{ line: 5, fileName: 'copy.png', scanIds: ['s-8'], duplicateOf: 's-8', note: 'A copy of scan s-8, stored in this batch; the row was applied to no scan.' }],
