@@ -126,7 +126,7 @@ describe('one chart from upload to station series', () => {
     await page.getByTestId('series-from').fill('2026-04-06');
     await page.getByTestId('series-to').fill('2026-04-12');
     await page.getByTestId('series-show').click();
-    await page.getByTestId('series-plot').locator('path').first().waitFor();
+    await page.getByTestId('series-plot').getByTestId('series-line').waitFor();
     const downloadPromise = page.waitForEvent('download');
     await page.getByTestId('series-download').click();
     const download = await downloadPromise;
