@@ -35,7 +35,13 @@ export class PressurePlot {
     const { x } = this.scales();
     const ticks = x.ticks(8);
     const stepMs = ticks.length > 1 ? ticks[1].getTime() - ticks[0].getTime() : 0;
-    return ticks.map((tick) => ({ at: x(tick), label: formatUtcTick(tick, stepMs) }));
+    // Labels at the ends of the axis lean inwards so they are not cut off by the plot's edge.
+    const edgePx = 40;
+    return ticks.map((tick) => {
+      const at = x(tick);
+      const anchor = at > BOX.width - BOX.marginRight - edgePx ? 'end' : at < BOX.marginLeft + edgePx ? 'start' : 'middle';
+      return { at, label: formatUtcTick(tick, stepMs), anchor };
+    });
   });
   protected readonly yTicks = computed(() => {
     const { y } = this.scales();
