@@ -68,8 +68,9 @@ async function main(): Promise<void> {
     await postgres?.stop();
     process.exit(code);
   };
-  process.once('SIGINT', () => void stop(0));
-  process.once('SIGTERM', () => void stop(0));
+  // Ctrl-C reaches every process of the group and npm/tsx pass it on again: keep listening, stop once.
+  process.on('SIGINT', () => void stop(0));
+  process.on('SIGTERM', () => void stop(0));
 
   try {
     if (postgres) {

@@ -63,12 +63,16 @@ async function main(): Promise<number> {
   chmodSync(workDir, 0o755);
   const needsDb = suites.includes('api') || suites.includes('e2e');
   const postgres = needsDb ? new LocalPostgres(join(workDir, 'pg'), await findFreePort()) : null;
-  const stopAll = async () => {
-    await postgres?.stop();
-    rmSync(workDir, { recursive: true, force: true });
-  };
-  process.once('SIGINT', () => void stopAll().then(() => process.exit(130)));
-  process.once('SIGTERM', () => void stopAll().then(() => process.exit(143)));
+  // Ctrl-C reaches every process of the group and wrappers pass it on again, so a signal can arrive twice:
+  // keep the handlers (a second signal would otherwise kill us mid-cleanup) and clean up once.
+  let cleanup: Promise<void> | undefined;
+  const stopAll = () =>
+    (cleanup ??= (async () => {
+      await postgres?.stop();
+      rmSync(workDir, { recursive: true, force: true });
+    })());
+  process.on('SIGINT', () => void stopAll().then(() => process.exit(130)));
+  process.on('SIGTERM', () => void stopAll().then(() => process.exit(143)));
 
   const results: SuiteResult[] = [];
   try {

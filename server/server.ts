@@ -101,8 +101,8 @@ async function main(): Promise<void> {
       },
     );
   };
-  process.once('SIGINT', () => stop('SIGINT'));
-  process.once('SIGTERM', () => stop('SIGTERM'));
+  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => stop('SIGTERM'));
   process.on('unhandledRejection', (reason) => {
     console.error('unhandled promise rejection', reason);
     process.exit(1);

@@ -39,8 +39,8 @@ async function main(): Promise<void> {
     await db.destroy();
     process.exit(0);
   };
-  process.once('SIGINT', () => void stop('SIGINT'));
-  process.once('SIGTERM', () => void stop('SIGTERM'));
+  process.on('SIGINT', () => void stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
   process.on('unhandledRejection', (reason) => {
     logger.error({ reason }, 'unhandled promise rejection');
     process.exit(1);
