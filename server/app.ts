@@ -6,6 +6,7 @@ import { createAuthenticate } from './auth/authenticate';
 import { chartFormsRoutes } from './chart-forms/chart-forms.routes';
 import { errorHandler } from './errors/error-handler';
 import { apiNotFound } from './errors/not-found';
+import { followInkRoutes } from './follow-ink/follow-ink.routes';
 import { healthRoutes } from './health/health.routes';
 import { clientStatic } from './http/client-static';
 import { securityHeaders } from './http/security';
@@ -41,6 +42,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/instruments', authenticate, instrumentsRoutes(deps));
   app.use('/api/chart-forms', authenticate, chartFormsRoutes(deps));
   app.use('/api/intake', authenticate, intakeRoutes(deps));
+  app.use('/api/scans', followInkRoutes(deps, authenticate));
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));

@@ -1,5 +1,6 @@
 import fs from 'node:fs/promises';
 import request from 'supertest';
+import { followInkPath } from '@shared/api/follow-ink';
 import type { Role } from '@shared/api/roles';
 import { ROLES } from '@shared/api/roles';
 import { API, IIIF } from '@shared/api/routes';
@@ -214,6 +215,12 @@ describe('who may call each route', () => {
       successStatus: 201,
       call: (token) => withToken(request(context.app).post(API.scanInkLines(scanId)), token).send(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 8)),
       sideEffectCount: () => count('ink_line'),
+    },
+    {
+      name: 'POST /api/scans/:scanId/follow-ink',
+      roles: ['volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).post(followInkPath(scanId)), token).send({ pins: syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 8).pins }),
     },
     {
       name: 'GET /api/series',

@@ -1,0 +1,80 @@
+import type { FollowInkRequest, FollowInkResult } from '@shared/api/follow-ink';
+import { followInk } from '@shared/domain/ink/follow-ink';
+import { parseHexColour, type RawImage } from '@shared/domain/ink/raw-image';
+import { readingToPixel, RegistrationError, type RegistrationFit } from '@shared/domain/registration';
+import type { ChartForm } from '@shared/domain/chart-form';
+import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
+import type { Db } from '../db/database';
+import { AppError, HTTP } from '../errors/app-error';
+import { registerDraft } from '../ink-lines/ink-line-reading';
+import { findPageSource } from '../jobs/page-source';
+import * as scansRepository from '../scans/scans.repository';
+import type { Storage } from '../storage/storage';
+import { findScanToFollow } from './follow-ink.repository';
+import { thinTrace } from './thin-knots';
+
+const TRACEABLE_STATUSES = ['ready_to_trace', 'traced'];
+const MS_PER_HOUR = 3_600_000;
+/** Knot spacing along the line, paper mm: close enough that straight joins stay within a pen width of the curve (common practice). */
+const KNOT_SPACING_MM = 0.75;
+
+/**
+ * Follow ink: fits the pins, decodes the scan's page, follows the pen line over the chart span (chart on →
+ * chart off when catalogued, else the whole drum turn) and thins it to knots in full-resolution pixels.
+ */
+export async function followScanInk(db: Db, storage: Storage, scanId: string, request: FollowInkRequest): Promise<FollowInkResult> {
+  const startedMs = Date.now();
+  const scan = await findScanToFollow(db, scanId);
+  if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
+  if (!TRACEABLE_STATUSES.includes(scan.status)) {
+    throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
+  }
+  if (!scan.chartFormId || !scan.periodStart) {
+    throw new AppError(HTTP.conflict, 'conflict', 'This scan has no chart form or period yet; catalogue it before tracing.');
+  }
+  const form = await chartFormsRepository.findChartFormById(db, scan.chartFormId);
+  if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
+  const periodStartMs = scan.periodStart.getTime();
+  const fit = register(form, request, periodStartMs);
+
+  const image = await decodePage(db, storage, scanId);
+  const hoursOf = (time: Date | null, fallback: number) =>
+    time === null ? fallback : Math.min(form.drumHours, Math.max(0, (time.getTime() - periodStartMs) / MS_PER_HOUR));
+  const trace = followInk(image, form, fit, {
+    startHours: hoursOf(scan.chartOn, 0),
+    endHours: hoursOf(scan.chartOff, form.drumHours),
+    inkColour: request.inkColour ? (parseHexColour(request.inkColour) ?? undefined) : undefined,
+    seed: request.seed,
+  });
+  const { knots, spans } = thinTrace(trace, KNOT_SPACING_MM * pixelsPerMm(form, fit));
+  return { knots, spans, lineWidthPx: trace.lineWidthPx, elapsedMs: Date.now() - startedMs };
+}
+
+function register(form: ChartForm, request: FollowInkRequest, periodStartMs: number): RegistrationFit {
+  try {
+    return registerDraft(form, { pins: request.pins, knots: [] }, periodStartMs);
+  } catch (error) {
+    if (!(error instanceof RegistrationError)) throw error;
+    throw new AppError(HTTP.unprocessable, 'registration_failed', `The pins do not register the chart: ${error.message}.`, {
+      reason: error.code,
+    });
+  }
+}
+
+/** Scan pixels per paper mm along the time direction, at the middle of the chart. */
+function pixelsPerMm(form: ChartForm, fit: RegistrationFit): number {
+  const pressure = (form.pressureMin + form.pressureMax) / 2;
+  const a = readingToPixel(form, fit, { hours: form.drumHours / 2, pressure });
+  const b = readingToPixel(form, fit, { hours: form.drumHours / 2 + 1, pressure });
+  return Math.hypot(b.xPx - a.xPx, b.yPx - a.yPx) / form.mmPerHour;
+}
+
+/** The scan's page pixels (the page raster for PDF and TIFF pages, else the master), decoded to raw RGB or grey. */
+async function decodePage(db: Db, storage: Storage, scanId: string): Promise<RawImage> {
+  const file = await scansRepository.findScanFile(db, scanId);
+  if (!file) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
+  const source = await findPageSource(storage, file);
+  if (!source) throw new AppError(HTTP.conflict, 'conflict', 'The page image of this scan is not made yet; try again in a minute.');
+  const { data, info } = await source.open().removeAlpha().raw().toBuffer({ resolveWithObject: true });
+  return { data, width: info.width, height: info.height, channels: info.channels as RawImage['channels'] };
+}

@@ -1,0 +1,82 @@
+import type { PinInput } from './ink-lines';
+
+/** Path of the Follow ink route (kept here so routes.ts stays untouched by this feature). */
+export const followInkPath = (scanId: string): string => `/api/scans/${encodeURIComponent(scanId)}/follow-ink`;
+
+/** What the Bench sends to let Follow ink find the pen line: the pins, and optionally a pixel on the line and its colour. */
+export interface FollowInkRequest {
+  pins: PinInput[];
+  /** A pixel on the pen line (full-resolution scan pixels); the followed line is held to pass through it. */
+  seed?: { xPx: number; yPx: number };
+  /** Ink colour as '#rrggbb'. */
+  inkColour?: string;
+}
+
+/** One followed knot in full-resolution scan pixels, with the finder's confidence (0–1). */
+export interface FollowedKnot {
+  xPx: number;
+  yPx: number;
+  confidence: number;
+}
+
+/**
+ * A flagged span of the followed line, by knot index. Gap: the last knot before and the first after
+ * (−1 / knot count when it runs off an end). Off-scale: the first and last knot inside.
+ */
+export interface FollowedSpan {
+  kind: 'gap' | 'off_scale';
+  fromIndex: number;
+  toIndex: number;
+}
+
+export interface FollowInkResult {
+  knots: FollowedKnot[];
+  spans: FollowedSpan[];
+  /** Measured width of the pen line, full-resolution px. */
+  lineWidthPx: number;
+  /** Time the server took to follow the line, ms. */
+  elapsedMs: number;
+}
+
+const MAX_PINS = 200;
+
+function isFiniteNumber(x: unknown): x is number {
+  return typeof x === 'number' && Number.isFinite(x);
+}
+
+/** Checks a Follow ink request from the wire; pins are checked as for an ink-line draft, with the same field paths. */
+export function parseFollowInkRequest(
+  x: unknown,
+): { ok: true; value: FollowInkRequest } | { ok: false; details: Record<string, string> } {
+  const details: Record<string, string> = {};
+  if (typeof x !== 'object' || x === null) return { ok: false, details: { '': 'body must be an object' } };
+  const body = x as Record<string, unknown>;
+  const pins: PinInput[] = [];
+  if (!Array.isArray(body['pins'])) details['pins'] = 'pins must be a list';
+  else if (body['pins'].length < 3) details['pins'] = 'at least three pins are needed to register a chart';
+  else if (body['pins'].length > MAX_PINS) details['pins'] = `at most ${MAX_PINS} pins`;
+  else {
+    body['pins'].forEach((raw: unknown, i: number) => {
+      const p = (raw ?? {}) as Record<string, unknown>;
+      if (!isFiniteNumber(p['xPx'])) details[`pins.${i}.xPx`] = 'xPx must be a number';
+      if (!isFiniteNumber(p['yPx'])) details[`pins.${i}.yPx`] = 'yPx must be a number';
+      if (!isFiniteNumber(p['pressure'])) details[`pins.${i}.pressure`] = 'pressure must be a number';
+      if (typeof p['time'] !== 'string' || Number.isNaN(Date.parse(p['time']))) details[`pins.${i}.time`] = 'time must be an ISO 8601 instant';
+      pins.push({ xPx: p['xPx'] as number, yPx: p['yPx'] as number, time: p['time'] as string, pressure: p['pressure'] as number });
+    });
+  }
+  const value: FollowInkRequest = { pins };
+  const seed = body['seed'];
+  if (seed !== undefined) {
+    const s = (seed ?? {}) as Record<string, unknown>;
+    if (!isFiniteNumber(s['xPx']) || !isFiniteNumber(s['yPx'])) details['seed'] = 'seed needs numbers xPx and yPx';
+    else value.seed = { xPx: s['xPx'], yPx: s['yPx'] };
+  }
+  const inkColour = body['inkColour'];
+  if (inkColour !== undefined) {
+    if (typeof inkColour !== 'string' || !/^#[0-9a-f]{6}$/i.test(inkColour)) details['inkColour'] = "inkColour must look like '#rrggbb'";
+    else value.inkColour = inkColour;
+  }
+  if (Object.keys(details).length > 0) return { ok: false, details };
+  return { ok: true, value };
+}
