@@ -1,6 +1,20 @@
 import { TestBed } from '@angular/core/testing';
 
+import type { FollowInkResult } from '@shared/api/follow-ink';
+
 import { BenchState } from './bench-state';
+
+const FOLLOWED: FollowInkResult = {
+  knots: [
+    { xPx: 100, yPx: 50, confidence: 0.9 },
+    { xPx: 110, yPx: 52, confidence: 0.2 },
+    { xPx: 140, yPx: 55, confidence: 0.8 },
+    { xPx: 150, yPx: 56, confidence: 0.95 },
+  ],
+  spans: [{ kind: 'gap', fromIndex: 1, toIndex: 2 }],
+  lineWidthPx: 4,
+  elapsedMs: 120,
+};
 
 describe('BenchState', () => {
   let state: BenchState;
@@ -64,7 +78,7 @@ describe('BenchState', () => {
     state.pickPoint({ x: 1, y: 1 });
     state.pickPoint({ x: 2, y: 2 });
 
-    state.undoKnot();
+    state.undo();
 
     expect(state.knots()).toEqual([{ xPx: 1, yPx: 1 }]);
     expect(state.knotCount()).toBe(1);
@@ -96,5 +110,71 @@ describe('BenchState', () => {
     const draft = state.draft();
 
     expect(draft).toEqual({ pins: [{ xPx: 2, yPx: 4, time: '2026-03-02T00:00:00.000Z', pressure: 29.92 }], knots: [{ xPx: 6, yPx: 8 }] });
+  });
+
+  it('when Follow ink answers, then its knots replace the hand-placed ones and one undo brings those back', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.chooseStep('ink');
+    state.pickPoint({ x: 5, y: 6 });
+    state.pickPoint({ x: 7, y: 8 });
+
+    state.replaceWithFollowed(FOLLOWED);
+    const followed = state.knots();
+    state.undo();
+
+    expect(followed.map((knot) => [knot.xPx, knot.yPx, knot.confidence])).toEqual(FOLLOWED.knots.map((knot) => [knot.xPx, knot.yPx, knot.confidence]));
+    expect(followed.map((knot) => knot.gapAfter)).toEqual([false, true, false, false]);
+    expect(state.knots()).toEqual([{ xPx: 5, yPx: 6 }, { xPx: 7, yPx: 8 }]);
+    expect(state.canUndo()).toBe(true);
+  });
+
+  it('when a followed knot is dragged, then it moves to the drop point in scan pixels and loses the finder confidence', () => {
+    state.setPreviewWidth(2000, 1000);
+    state.replaceWithFollowed(FOLLOWED);
+
+    state.moveKnot(1, { x: 55, y: 30 });
+
+    expect(state.knots()[1]).toEqual({ xPx: 110, yPx: 60, gapAfter: true });
+    expect(state.knots()[0]).toEqual({ xPx: 100, yPx: 50, confidence: 0.9, gapAfter: false });
+    expect(state.knotCount()).toBe(4);
+  });
+
+  it('when a drag is undone, then the knot is back where Follow ink put it', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.replaceWithFollowed(FOLLOWED);
+    const followed = state.knots();
+
+    state.moveKnot(0, { x: 1, y: 1 });
+    state.undo();
+
+    expect(state.knots()).toEqual(followed);
+  });
+
+  it('when the knot before a gap is deleted, then the gap passes to the knot before it', () => {
+    state.replaceWithFollowed(FOLLOWED);
+
+    state.deleteKnot(1);
+
+    expect(state.knots().map((knot) => knot.xPx)).toEqual([100, 140, 150]);
+    expect(state.knots().map((knot) => knot.gapAfter)).toEqual([true, false, false]);
+  });
+
+  it('when a knot is clicked between followed knots, then it goes in its place along time and bridges the gap there', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.chooseStep('ink');
+    state.replaceWithFollowed(FOLLOWED);
+
+    state.pickPoint({ x: 125, y: 54 });
+
+    expect(state.knots().map((knot) => knot.xPx)).toEqual([100, 110, 125, 140, 150]);
+    expect(state.knots()[1].gapAfter).toBe(false);
+    expect(state.draft().knots[2]).toEqual({ xPx: 125, yPx: 54 });
+  });
+
+  it('when nothing has changed, then undo does nothing', () => {
+    state.undo();
+
+    expect(state.knots()).toEqual([]);
+    expect(state.canUndo()).toBe(false);
   });
 });

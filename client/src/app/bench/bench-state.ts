@@ -1,4 +1,5 @@
 import { computed, Injectable, signal } from '@angular/core';
+import type { FollowInkResult } from '@shared/api/follow-ink';
 import type { InkLineDraft, KnotInput, PinInput } from '@shared/api/ink-lines';
 
 export type BenchStep = 'pin' | 'ink';
@@ -10,6 +11,18 @@ export interface ScanPoint {
 }
 
 /**
+ * A knot on the Bench. Knots found by Follow ink carry the finder's confidence (0–1) and whether the pen
+ * line has a gap after them; knots placed or moved by hand have neither (they are the volunteer's word).
+ */
+export interface BenchKnot extends KnotInput {
+  confidence?: number;
+  gapAfter?: boolean;
+}
+
+/** How many earlier knot lists Undo can go back through. */
+const UNDO_DEPTH = 50;
+
+/**
  * The Bench's working state for one scan: the step, the pins, the knots and the crossing picked for the
  * next pin. Every point is kept in FULL-resolution scan pixels; clicks arrive in preview-image pixels and
  * are scaled up here, because the server registers pins against the master scan.
@@ -18,7 +31,9 @@ export interface ScanPoint {
 export class BenchState {
   private readonly stepValue = signal<BenchStep>('pin');
   private readonly pinList = signal<readonly PinInput[]>([]);
-  private readonly knotList = signal<readonly KnotInput[]>([]);
+  private readonly knotList = signal<readonly BenchKnot[]>([]);
+  // Earlier knot lists, newest last: every change to the knots pushes the list it replaced.
+  private readonly knotHistory = signal<readonly (readonly BenchKnot[])[]>([]);
   private readonly pendingCrossing = signal<ScanPoint | null>(null);
   private readonly scanPxPerPreviewPxValue = signal<number | null>(null);
 
@@ -30,7 +45,11 @@ export class BenchState {
   /** Full-resolution scan pixels per preview pixel; null until the preview has loaded. */
   readonly scanPxPerPreviewPx = this.scanPxPerPreviewPxValue.asReadonly();
   readonly knotCount = computed(() => this.knotList().length);
-  readonly draft = computed<InkLineDraft>(() => ({ pins: [...this.pinList()], knots: [...this.knotList()] }));
+  readonly canUndo = computed(() => this.knotHistory().length > 0);
+  readonly draft = computed<InkLineDraft>(() => ({
+    pins: [...this.pinList()],
+    knots: this.knotList().map((knot) => ({ xPx: knot.xPx, yPx: knot.yPx })),
+  }));
 
   chooseStep(step: BenchStep): void {
     this.stepValue.set(step);
@@ -54,7 +73,66 @@ export class BenchState {
   pickPoint(previewPoint: { x: number; y: number }): void {
     const point = this.toScanPoint(previewPoint);
     if (this.stepValue() === 'pin') this.pendingCrossing.set(point);
-    else this.knotList.update((knots) => [...knots, point]);
+    else this.addKnot(point);
+  }
+
+  /**
+   * Adds a hand-placed knot (scan px) in its place along time: before the first knot to its right, so a click
+   * between two followed knots joins the line there. A knot put into a gap bridges it.
+   */
+  addKnot(point: ScanPoint): void {
+    this.changeKnots((knots) => {
+      const knot: BenchKnot = { xPx: point.xPx, yPx: point.yPx };
+      const at = knots.findIndex((other) => other.xPx > point.xPx);
+      if (at < 0) return [...knots, knot];
+      const next = [...knots];
+      if (at > 0) next[at - 1] = { ...next[at - 1], gapAfter: false };
+      next.splice(at, 0, knot);
+      return next;
+    });
+  }
+
+  /** Replaces all knots with the line Follow ink found (one Undo brings the earlier knots back). */
+  replaceWithFollowed(result: FollowInkResult): void {
+    const gapAfter = new Set(result.spans.filter((span) => span.kind === 'gap' && span.toIndex === span.fromIndex + 1).map((span) => span.fromIndex));
+    this.changeKnots(() =>
+      result.knots.map((knot, index) => ({ xPx: knot.xPx, yPx: knot.yPx, confidence: knot.confidence, gapAfter: gapAfter.has(index) })),
+    );
+  }
+
+  /** Drags knot `index` to a point on the preview; a moved knot is a hand-placed one (no confidence of the finder). */
+  moveKnot(index: number, previewPoint: { x: number; y: number }): void {
+    const point = this.toScanPoint(previewPoint);
+    this.changeKnots((knots) => knots.map((knot, i) => (i === index ? { xPx: point.xPx, yPx: point.yPx, gapAfter: knot.gapAfter } : knot)));
+  }
+
+  /** Deletes knot `index`; a gap after it passes to the knot before, so deleting a knot never bridges a gap. */
+  deleteKnot(index: number): void {
+    this.changeKnots((knots) => {
+      const deleted = knots[index];
+      if (!deleted) return knots;
+      return knots.flatMap((knot, i) => {
+        if (i === index) return [];
+        if (i === index - 1 && deleted.gapAfter) return [{ ...knot, gapAfter: true }];
+        return [knot];
+      });
+    });
+  }
+
+  /** Undoes the last change to the knots (a click, a drag, a delete or a Follow ink). */
+  undo(): void {
+    const history = this.knotHistory();
+    if (history.length === 0) return;
+    this.knotList.set(history[history.length - 1]);
+    this.knotHistory.set(history.slice(0, -1));
+  }
+
+  private changeKnots(change: (knots: readonly BenchKnot[]) => readonly BenchKnot[]): void {
+    const before = this.knotList();
+    const after = change(before);
+    if (after === before) return;
+    this.knotHistory.update((history) => [...history, before].slice(-UNDO_DEPTH));
+    this.knotList.set(after);
   }
 
   /** Turns the picked crossing into a pin with its printed time (ISO 8601 UTC) and pressure (chart form's unit). */
@@ -71,9 +149,5 @@ export class BenchState {
 
   deletePin(index: number): void {
     this.pinList.update((pins) => pins.filter((_, i) => i !== index));
-  }
-
-  undoKnot(): void {
-    this.knotList.update((knots) => knots.slice(0, -1));
   }
 }

@@ -92,6 +92,14 @@ export class BenchPage {
     if (this.state.scanPxPerPreviewPx() !== null) this.state.pickPoint(point);
   }
 
+  protected moveKnot(move: { index: number; point: { x: number; y: number } }): void {
+    if (this.state.scanPxPerPreviewPx() !== null) this.state.moveKnot(move.index, move.point);
+  }
+
+  protected deleteKnot(index: number): void {
+    this.state.deleteKnot(index);
+  }
+
   protected handIn(): void {
     const parsed = parseInkLineDraft(this.state.draft());
     this.saved.set(null);

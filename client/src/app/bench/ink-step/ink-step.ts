@@ -1,35 +1,110 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { DecimalPipe } from '@angular/common';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input, signal } from '@angular/core';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
 
+import { ApiError } from '../../core/http/api-error';
 import { BenchState } from '../bench-state';
+import { FollowInkApi } from '../follow-ink-api';
+import { LOW_CONFIDENCE } from '../scan-stage/stage-marks';
 
-/** The Ink step: knots are clicked along the pen line; this shows their count and undoes the last one. */
+/** Fewest pins the server can register a chart with. */
+const MIN_PINS = 3;
+
+/**
+ * The Ink step: Follow ink finds the pen line from the pins; knots can also be clicked along the line,
+ * dragged to correct them and right-clicked to delete them. Undo steps back through every change.
+ */
 @Component({
   selector: 'isl-ink-step',
-  imports: [MatButtonModule, MatIconModule],
+  imports: [DecimalPipe, MatButtonModule, MatIconModule, MatProgressBarModule],
   template: `
     <section aria-labelledby="ink-heading">
       <h2 id="ink-heading" class="heading">Ink</h2>
-      <p class="isl-muted">Click along the pen line from left to right; each click places a knot.</p>
-      <p class="count"><span class="swatch"></span><span data-testid="knot-count" [attr.data-count]="state.knotCount()">{{ state.knotCount() }}</span> knots</p>
-      <button mat-stroked-button type="button" (click)="undoKnot()" [disabled]="state.knotCount() === 0" data-testid="undo-knot">
+      <button mat-flat-button type="button" (click)="followInk()" [disabled]="!canFollow()" data-testid="follow-ink">
+        <mat-icon>timeline</mat-icon>
+        Follow ink
+      </button>
+      @if (isFollowing()) {
+        <mat-progress-bar mode="indeterminate" aria-label="Following the ink" data-testid="follow-ink-progress" />
+      }
+      @if (state.pins().length < minPins) {
+        <p class="isl-muted">Follow ink needs at least {{ minPins }} pins.</p>
+      }
+      @if (followed(); as followed) {
+        <p class="isl-muted" data-testid="follow-ink-result">
+          Followed in {{ followed.elapsedMs / 1000 | number: '1.1-1' }} s: {{ followed.knotCount }} knots, {{ followed.doubtfulCount }} doubtful, {{ followed.gapCount }}
+          gaps.
+        </p>
+      }
+      @if (problem(); as problem) {
+        <p class="isl-inline-error" role="alert" data-testid="follow-ink-problem">{{ problem }}</p>
+      }
+      <p class="isl-muted">Click along the pen line to add a knot; drag a knot to correct it; right-click a knot to delete it.</p>
+      <p class="legend">
+        <span class="swatch"></span><span data-testid="knot-count" [attr.data-count]="state.knotCount()">{{ state.knotCount() }}</span> knots
+        <span class="swatch is-doubtful"></span> doubtful
+        <span class="bracket">[ ]</span> gap
+      </p>
+      <button mat-stroked-button type="button" (click)="undo()" [disabled]="!state.canUndo()" data-testid="undo-knot">
         <mat-icon>undo</mat-icon>
-        Undo last knot
+        Undo
       </button>
     </section>
   `,
   styles: `
     .heading { font: var(--mat-sys-title-medium); margin: 0 0 4px; }
-    .count { display: flex; align-items: center; gap: 6px; font: var(--mat-sys-body-medium); }
+    .legend { display: flex; flex-wrap: wrap; align-items: center; gap: 6px; font: var(--mat-sys-body-medium); }
     .swatch { width: 18px; height: 3px; border-radius: 2px; background: var(--isl-ink-cyan); }
+    .swatch.is-doubtful { background: repeating-linear-gradient(90deg, hsl(24, 100%, 50%) 0 6px, transparent 6px 9px); }
+    .bracket { color: hsl(0, 80%, 48%); font-weight: 700; }
+    mat-progress-bar { margin: 6px 0; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class InkStep {
   protected readonly state = inject(BenchState);
+  private readonly followInkApi = inject(FollowInkApi);
+  private readonly destroyRef = inject(DestroyRef);
 
-  protected undoKnot(): void {
-    this.state.undoKnot();
+  /** The scan on the Bench. */
+  readonly scanId = input.required<string>();
+
+  protected readonly minPins = MIN_PINS;
+  protected readonly isFollowing = signal(false);
+  protected readonly problem = signal<string | null>(null);
+  protected readonly followed = signal<{ elapsedMs: number; knotCount: number; doubtfulCount: number; gapCount: number } | null>(null);
+  protected readonly canFollow = computed(() => this.state.pins().length >= MIN_PINS && !this.isFollowing());
+
+  protected followInk(): void {
+    this.problem.set(null);
+    this.followed.set(null);
+    this.isFollowing.set(true);
+    this.followInkApi
+      .follow(this.scanId(), { pins: [...this.state.pins()] })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (result) => {
+          this.isFollowing.set(false);
+          this.state.replaceWithFollowed(result);
+          this.followed.set({
+            elapsedMs: result.elapsedMs,
+            knotCount: result.knots.length,
+            doubtfulCount: result.knots.filter((knot) => knot.confidence < LOW_CONFIDENCE).length,
+            // Gaps inside the line (the ones drawn as brackets); the bare ends before chart on and after chart off are not counted.
+            gapCount: result.spans.filter((span) => span.kind === 'gap' && span.toIndex === span.fromIndex + 1).length,
+          });
+        },
+        error: (error: unknown) => {
+          this.isFollowing.set(false);
+          this.problem.set(error instanceof ApiError ? error.message : 'Follow ink failed.');
+        },
+      });
+  }
+
+  protected undo(): void {
+    this.state.undo();
   }
 }

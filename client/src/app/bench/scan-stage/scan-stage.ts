@@ -13,11 +13,11 @@ import {
 } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
-import type { KnotInput, PinInput } from '@shared/api/ink-lines';
+import type { PinInput } from '@shared/api/ink-lines';
 import Konva from 'konva';
 
-import type { ScanPoint } from '../bench-state';
-import { drawMarks } from './stage-marks';
+import type { BenchKnot, ScanPoint } from '../bench-state';
+import { drawMarks, KNOT_NAME, type KnotEdits } from './stage-marks';
 import { fitView, type Size, type ViewTransform, zoomAbout } from './view-transform';
 
 const WHEEL_ZOOM_FACTOR = 1.15;
@@ -46,12 +46,18 @@ export class ScanStage {
   /** Full-resolution scan px per preview px; known once the preview has loaded. */
   readonly scanPxPerPreviewPx = input<number | null>(null);
   readonly pins = input<readonly PinInput[]>([]);
-  readonly knots = input<readonly KnotInput[]>([]);
+  readonly knots = input<readonly BenchKnot[]>([]);
   readonly pendingPin = input<ScanPoint | null>(null);
+  /** Ink step: knots can be dragged to correct them and right-clicked to delete them. */
+  readonly areKnotsEditable = input(false);
   /** The preview's natural size, once loaded. */
   readonly previewLoaded = output<Size>();
   /** A click on the image, in preview-image pixels. */
   readonly pointPicked = output<{ x: number; y: number }>();
+  /** A knot dragged to a new place (preview-image pixels). */
+  readonly knotMoved = output<{ index: number; point: { x: number; y: number } }>();
+  /** A knot right-clicked for deletion. */
+  readonly knotDeleted = output<number>();
 
   private readonly konvaHost = viewChild.required<ElementRef<HTMLDivElement>>('konvaHost');
   protected readonly zoomPercent = signal(100);
@@ -70,8 +76,8 @@ export class ScanStage {
     effect(() => this.loadImage(this.imageUrl()));
     effect(() => {
       // Read every input the marks depend on, so the effect re-runs when any of them changes.
-      const marks = { pins: this.pins(), knots: this.knots(), pendingPin: this.pendingPin(), scale: this.scanPxPerPreviewPx() };
-      this.redrawMarks(marks);
+      this.areKnotsEditable();
+      this.redrawMarks(this.currentMarks());
     });
   }
 
@@ -96,7 +102,13 @@ export class ScanStage {
     this.marksLayer = new Konva.Layer();
     stage.add(this.imageLayer, this.marksLayer);
     stage.on('pointerdown', () => (this.pressStart = stage.getPointerPosition()));
-    stage.on('click tap', () => this.pickAtPointer());
+    stage.on('click tap', (event) => {
+      // A click on a knot (or a right-click anywhere) is not a new knot.
+      const isOnKnot = event.target !== stage && event.target.hasName(KNOT_NAME);
+      const isMainButton = !(event.evt instanceof MouseEvent) || event.evt.button === 0;
+      if (!isOnKnot && isMainButton) this.pickAtPointer();
+    });
+    stage.on('contextmenu', (event) => event.evt.preventDefault());
     stage.on('dragmove dragend', () => this.reportView());
     stage.on('wheel', (event) => this.zoomWithWheel(event.evt));
     this.stage = stage;
@@ -111,7 +123,7 @@ export class ScanStage {
 
     if (this.pendingImage) this.showImage(this.pendingImage);
     this.reportView();
-    this.redrawMarks({ pins: this.pins(), knots: this.knots(), pendingPin: this.pendingPin(), scale: this.scanPxPerPreviewPx() });
+    this.redrawMarks(this.currentMarks());
   }
 
   private loadImage(url: string): void {
@@ -166,7 +178,7 @@ export class ScanStage {
     this.stage?.position({ x: view.x, y: view.y });
     this.reportView();
     // Marks keep a constant screen size, so they are redrawn for the new scale.
-    this.redrawMarks({ pins: this.pins(), knots: this.knots(), pendingPin: this.pendingPin(), scale: this.scanPxPerPreviewPx() });
+    this.redrawMarks(this.currentMarks());
   }
 
   /** Writes the view to the host's data attributes at once, so a test can read them right after an event. */
@@ -182,9 +194,22 @@ export class ScanStage {
     this.zoomPercent.set(Math.round((100 * view.scale) / scanPxPerPreviewPx));
   }
 
-  private redrawMarks(marks: { pins: readonly PinInput[]; knots: readonly KnotInput[]; pendingPin: ScanPoint | null; scale: number | null }): void {
+  private currentMarks(): { pins: readonly PinInput[]; knots: readonly BenchKnot[]; pendingPin: ScanPoint | null; scale: number | null } {
+    return { pins: this.pins(), knots: this.knots(), pendingPin: this.pendingPin(), scale: this.scanPxPerPreviewPx() };
+  }
+
+  private readonly knotEdits: KnotEdits = {
+    moved: (index, point) => this.knotMoved.emit({ index, point }),
+    deleted: (index) => this.knotDeleted.emit(index),
+  };
+
+  private redrawMarks(marks: { pins: readonly PinInput[]; knots: readonly BenchKnot[]; pendingPin: ScanPoint | null; scale: number | null }): void {
     if (!this.marksLayer || !this.stage || marks.scale === null) return;
-    drawMarks(this.marksLayer, { ...marks, scanPxPerPreviewPx: marks.scale, screenPxPerPreviewPx: this.stage.scaleX() });
+    drawMarks(
+      this.marksLayer,
+      { ...marks, scanPxPerPreviewPx: marks.scale, screenPxPerPreviewPx: this.stage.scaleX(), areKnotsEditable: this.areKnotsEditable() },
+      this.knotEdits,
+    );
     // The scale attribute depends on scanPxPerPreviewPx too, which may just have become known.
     this.reportView();
   }

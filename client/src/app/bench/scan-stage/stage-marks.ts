@@ -1,48 +1,135 @@
-import type { KnotInput, PinInput } from '@shared/api/ink-lines';
+import type { PinInput } from '@shared/api/ink-lines';
 import Konva from 'konva';
 
-import type { ScanPoint } from '../bench-state';
+import type { BenchKnot, ScanPoint } from '../bench-state';
 
 // Konva draws on canvas and cannot read CSS custom properties; these match --isl-pin-amber and --isl-ink-cyan.
 const PIN_AMBER = 'hsl(38, 95%, 48%)';
 const INK_CYAN = 'hsl(188, 100%, 42%)';
+// Low-confidence spans (dashed orange) and gaps (red brackets), as the Look asks.
+const LOW_CONFIDENCE_ORANGE = 'hsl(24, 100%, 50%)';
+const GAP_RED = 'hsl(0, 80%, 48%)';
 const OUTLINE = 'rgba(20, 30, 30, 0.85)';
+/** Below this confidence a followed stretch is drawn as doubtful, for the volunteer to check. */
+export const LOW_CONFIDENCE = 0.5;
+/** Closest two followed knots' handles are drawn on screen, px; zoom in to reach the ones between. */
+const HANDLE_SPACING_SCREEN_PX = 12;
+/** Name of the knot shapes, so a click on one is not taken for a new knot. */
+export const KNOT_NAME = 'knot';
 
 export interface Marks {
   pins: readonly PinInput[];
-  knots: readonly KnotInput[];
+  knots: readonly BenchKnot[];
   pendingPin: ScanPoint | null;
   /** Full-resolution scan px per preview px: marks are stored in scan px but drawn in preview px. */
   scanPxPerPreviewPx: number;
   /** Current zoom, so marks keep the same size on screen. */
   screenPxPerPreviewPx: number;
+  /** Ink step: knots can be dragged (moved) and right-clicked (deleted). */
+  areKnotsEditable: boolean;
 }
 
-/** Replaces the layer's content with the ink line (cyan), its knots, the pins (amber) and the picked crossing. */
-export function drawMarks(layer: Konva.Layer, marks: Marks): void {
+export interface KnotEdits {
+  /** A knot dropped at a new place, in preview px. */
+  moved(index: number, point: { x: number; y: number }): void;
+  deleted(index: number): void;
+}
+
+type SegmentStyle = 'sure' | 'doubtful' | 'gap';
+
+/** How the stretch from knot i to knot i + 1 is drawn: a gap is not drawn (its ends get brackets); a weak end makes it doubtful. */
+export function segmentStyle(from: BenchKnot, to: BenchKnot): SegmentStyle {
+  if (from.gapAfter) return 'gap';
+  return Math.min(from.confidence ?? 1, to.confidence ?? 1) < LOW_CONFIDENCE ? 'doubtful' : 'sure';
+}
+
+/** Replaces the layer's content with the ink line (cyan, dashed orange where doubtful, red brackets at gaps), its knots, the pins and the picked crossing. */
+export function drawMarks(layer: Konva.Layer, marks: Marks, edits?: KnotEdits): void {
   layer.destroyChildren();
   const toPreview = (point: { xPx: number; yPx: number }) => ({ x: point.xPx / marks.scanPxPerPreviewPx, y: point.yPx / marks.scanPxPerPreviewPx });
   const unit = 1 / marks.screenPxPerPreviewPx;
 
   const knotPoints = marks.knots.map(toPreview);
-  if (knotPoints.length > 1) {
-    layer.add(new Konva.Line({ points: knotPoints.flatMap((p) => [p.x, p.y]), stroke: INK_CYAN, strokeWidth: 2 * unit, lineJoin: 'round', lineCap: 'round' }));
-  }
-  for (const point of knotPoints) {
-    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 3.5 * unit, fill: INK_CYAN, stroke: OUTLINE, strokeWidth: unit }));
-  }
+  drawInkLine(layer, marks.knots, knotPoints, unit);
+  // A followed line has a knot every ~0.75 mm, too close for handles at a whole-chart zoom: its handles are
+  // spaced out on screen (hand-placed knots and knots at a gap always get one), and zooming in shows the rest.
+  let lastHandle: { x: number; y: number } | null = null;
+  knotPoints.forEach((point, index) => {
+    const source = marks.knots[index];
+    const isFollowed = source.confidence !== undefined;
+    const bordersGap = source.gapAfter === true || (index > 0 && marks.knots[index - 1].gapAfter === true);
+    const isCrowded = lastHandle !== null && Math.hypot(point.x - lastHandle.x, point.y - lastHandle.y) < HANDLE_SPACING_SCREEN_PX * unit;
+    if (isFollowed && !bordersGap && isCrowded && index !== knotPoints.length - 1) return;
+    lastHandle = point;
+    const knot = new Konva.Circle({
+      name: KNOT_NAME,
+      x: point.x,
+      y: point.y,
+      radius: (isFollowed ? 3 : 3.5) * unit,
+      fill: isFollowed ? 'white' : INK_CYAN,
+      stroke: isFollowed ? INK_CYAN : OUTLINE,
+      strokeWidth: unit,
+      draggable: marks.areKnotsEditable,
+      listening: marks.areKnotsEditable,
+      hitStrokeWidth: 6 * unit,
+    });
+    if (marks.areKnotsEditable && edits) {
+      knot.on('dragend', () => edits.moved(index, { x: knot.x(), y: knot.y() }));
+      knot.on('contextmenu', (event) => {
+        event.evt.preventDefault();
+        edits.deleted(index);
+      });
+    }
+    layer.add(knot);
+  });
 
   marks.pins.forEach((pin, index) => {
     const point = toPreview(pin);
-    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 6 * unit, fill: PIN_AMBER, stroke: OUTLINE, strokeWidth: unit }));
-    layer.add(new Konva.Text({ x: point.x + 8 * unit, y: point.y - 16 * unit, text: String(index + 1), fontSize: 13 * unit, fontStyle: 'bold', fill: OUTLINE }));
+    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 6 * unit, fill: PIN_AMBER, stroke: OUTLINE, strokeWidth: unit, listening: false }));
+    layer.add(new Konva.Text({ x: point.x + 8 * unit, y: point.y - 16 * unit, text: String(index + 1), fontSize: 13 * unit, fontStyle: 'bold', fill: OUTLINE, listening: false }));
   });
 
   if (marks.pendingPin) {
     const point = toPreview(marks.pendingPin);
-    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 9 * unit, stroke: PIN_AMBER, strokeWidth: 2.5 * unit, dash: [4 * unit, 3 * unit] }));
-    layer.add(new Konva.Line({ points: [point.x - 14 * unit, point.y, point.x + 14 * unit, point.y], stroke: PIN_AMBER, strokeWidth: unit }));
-    layer.add(new Konva.Line({ points: [point.x, point.y - 14 * unit, point.x, point.y + 14 * unit], stroke: PIN_AMBER, strokeWidth: unit }));
+    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 9 * unit, stroke: PIN_AMBER, strokeWidth: 2.5 * unit, dash: [4 * unit, 3 * unit], listening: false }));
+    layer.add(new Konva.Line({ points: [point.x - 14 * unit, point.y, point.x + 14 * unit, point.y], stroke: PIN_AMBER, strokeWidth: unit, listening: false }));
+    layer.add(new Konva.Line({ points: [point.x, point.y - 14 * unit, point.x, point.y + 14 * unit], stroke: PIN_AMBER, strokeWidth: unit, listening: false }));
   }
   layer.batchDraw();
+}
+
+/** Draws the line as runs of one style each (a few long lines instead of one per knot), and a bracket at each end of a gap. */
+function drawInkLine(layer: Konva.Layer, knots: readonly BenchKnot[], points: { x: number; y: number }[], unit: number): void {
+  let runStart = 0;
+  for (let i = 0; i < knots.length - 1; i++) {
+    const style = segmentStyle(knots[i], knots[i + 1]);
+    const nextStyle = i + 1 < knots.length - 1 ? segmentStyle(knots[i + 1], knots[i + 2]) : null;
+    if (style === nextStyle) continue;
+    if (style === 'gap') drawGapBrackets(layer, points[i], points[i + 1], unit);
+    else {
+      const run = points.slice(runStart, i + 2).flatMap((p) => [p.x, p.y]);
+      layer.add(
+        new Konva.Line({
+          points: run,
+          stroke: style === 'sure' ? INK_CYAN : LOW_CONFIDENCE_ORANGE,
+          strokeWidth: 2 * unit,
+          dash: style === 'doubtful' ? [6 * unit, 4 * unit] : undefined,
+          lineJoin: 'round',
+          lineCap: 'round',
+          listening: false,
+        }),
+      );
+    }
+    runStart = i + 1;
+  }
+}
+
+/** "[" just after the knot before a gap and "]" just before the knot after it. */
+function drawGapBrackets(layer: Konva.Layer, before: { x: number; y: number }, after: { x: number; y: number }, unit: number): void {
+  const arm = 4 * unit;
+  const half = 8 * unit;
+  const open = before.x + 3 * unit;
+  const close = after.x - 3 * unit;
+  layer.add(new Konva.Line({ points: [open + arm, before.y - half, open, before.y - half, open, before.y + half, open + arm, before.y + half], stroke: GAP_RED, strokeWidth: 2 * unit, listening: false }));
+  layer.add(new Konva.Line({ points: [close - arm, after.y - half, close, after.y - half, close, after.y + half, close - arm, after.y + half], stroke: GAP_RED, strokeWidth: 2 * unit, listening: false }));
 }
