@@ -1,7 +1,4 @@
-import type { PinInput } from './ink-lines';
-
-/** Path of the Follow ink route (kept here so routes.ts stays untouched by this feature). */
-export const followInkPath = (scanId: string): string => `/api/scans/${encodeURIComponent(scanId)}/follow-ink`;
+import { isFiniteNumber, readPins, type PinInput } from './ink-lines';
 
 /** What the Bench sends to let Follow ink find the pen line: the pins, and optionally a pixel on the line and its colour. */
 export interface FollowInkRequest {
@@ -38,12 +35,6 @@ export interface FollowInkResult {
   elapsedMs: number;
 }
 
-const MAX_PINS = 200;
-
-function isFiniteNumber(x: unknown): x is number {
-  return typeof x === 'number' && Number.isFinite(x);
-}
-
 /** Checks a Follow ink request from the wire; pins are checked as for an ink-line draft, with the same field paths. */
 export function parseFollowInkRequest(
   x: unknown,
@@ -51,20 +42,7 @@ export function parseFollowInkRequest(
   const details: Record<string, string> = {};
   if (typeof x !== 'object' || x === null) return { ok: false, details: { '': 'body must be an object' } };
   const body = x as Record<string, unknown>;
-  const pins: PinInput[] = [];
-  if (!Array.isArray(body['pins'])) details['pins'] = 'pins must be a list';
-  else if (body['pins'].length < 3) details['pins'] = 'at least three pins are needed to register a chart';
-  else if (body['pins'].length > MAX_PINS) details['pins'] = `at most ${MAX_PINS} pins`;
-  else {
-    body['pins'].forEach((raw: unknown, i: number) => {
-      const p = (raw ?? {}) as Record<string, unknown>;
-      if (!isFiniteNumber(p['xPx'])) details[`pins.${i}.xPx`] = 'xPx must be a number';
-      if (!isFiniteNumber(p['yPx'])) details[`pins.${i}.yPx`] = 'yPx must be a number';
-      if (!isFiniteNumber(p['pressure'])) details[`pins.${i}.pressure`] = 'pressure must be a number';
-      if (typeof p['time'] !== 'string' || Number.isNaN(Date.parse(p['time']))) details[`pins.${i}.time`] = 'time must be an ISO 8601 instant';
-      pins.push({ xPx: p['xPx'] as number, yPx: p['yPx'] as number, time: p['time'] as string, pressure: p['pressure'] as number });
-    });
-  }
+  const pins = readPins(body['pins'], details);
   const value: FollowInkRequest = { pins };
   const seed = body['seed'];
   if (seed !== undefined) {

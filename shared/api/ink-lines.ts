@@ -46,8 +46,32 @@ export interface InkLineSaved {
 const MAX_PINS = 200;
 const MAX_KNOTS = 100000;
 
-function isFiniteNumber(x: unknown): x is number {
+export function isFiniteNumber(x: unknown): x is number {
   return typeof x === 'number' && Number.isFinite(x);
+}
+
+/**
+ * Reads the `pins` of a request body, adding problems to `details` under paths like `pins.2.time`.
+ * Shared by the ink-line draft and the Follow ink request, so both speak of pins alike.
+ */
+export function readPins(raw: unknown, details: Record<string, string>): PinInput[] {
+  const pins: PinInput[] = [];
+  if (!Array.isArray(raw)) details['pins'] = 'pins must be a list';
+  else if (raw.length < 3) details['pins'] = 'at least three pins are needed to register a chart';
+  else if (raw.length > MAX_PINS) details['pins'] = `at most ${MAX_PINS} pins`;
+  else {
+    raw.forEach((item: unknown, i: number) => {
+      const p = (item ?? {}) as Record<string, unknown>;
+      if (!isFiniteNumber(p['xPx'])) details[`pins.${i}.xPx`] = 'xPx must be a number';
+      if (!isFiniteNumber(p['yPx'])) details[`pins.${i}.yPx`] = 'yPx must be a number';
+      if (!isFiniteNumber(p['pressure'])) details[`pins.${i}.pressure`] = 'pressure must be a number';
+      if (typeof p['time'] !== 'string' || Number.isNaN(Date.parse(p['time']))) {
+        details[`pins.${i}.time`] = 'time must be an ISO 8601 instant';
+      }
+      pins.push({ xPx: p['xPx'] as number, yPx: p['yPx'] as number, time: p['time'] as string, pressure: p['pressure'] as number });
+    });
+  }
+  return pins;
 }
 
 /**
@@ -60,22 +84,7 @@ export function parseInkLineDraft(
   const details: Record<string, string> = {};
   if (typeof x !== 'object' || x === null) return { ok: false, details: { '': 'body must be an object' } };
   const body = x as Record<string, unknown>;
-  const pins: PinInput[] = [];
-  if (!Array.isArray(body['pins'])) details['pins'] = 'pins must be a list';
-  else if (body['pins'].length < 3) details['pins'] = 'at least three pins are needed to register a chart';
-  else if (body['pins'].length > MAX_PINS) details['pins'] = `at most ${MAX_PINS} pins`;
-  else {
-    body['pins'].forEach((raw: unknown, i: number) => {
-      const p = (raw ?? {}) as Record<string, unknown>;
-      if (!isFiniteNumber(p['xPx'])) details[`pins.${i}.xPx`] = 'xPx must be a number';
-      if (!isFiniteNumber(p['yPx'])) details[`pins.${i}.yPx`] = 'yPx must be a number';
-      if (!isFiniteNumber(p['pressure'])) details[`pins.${i}.pressure`] = 'pressure must be a number';
-      if (typeof p['time'] !== 'string' || Number.isNaN(Date.parse(p['time']))) {
-        details[`pins.${i}.time`] = 'time must be an ISO 8601 instant';
-      }
-      pins.push({ xPx: p['xPx'] as number, yPx: p['yPx'] as number, time: p['time'] as string, pressure: p['pressure'] as number });
-    });
-  }
+  const pins = readPins(body['pins'], details);
   const knots: KnotInput[] = [];
   if (!Array.isArray(body['knots'])) details['knots'] = 'knots must be a list';
   else if (body['knots'].length < 2) details['knots'] = 'at least two knots are needed along the pen line';

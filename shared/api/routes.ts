@@ -22,6 +22,7 @@ export const API = {
   scanDerivativesRetry: (scanId: string) => `/api/scans/${enc(scanId)}/derivatives/retry`,
   scanPreview: (scanId: string) => `/api/scans/${enc(scanId)}/preview`,
   scanInkLines: (scanId: string) => `/api/scans/${enc(scanId)}/ink-lines`,
+  scanFollowInk: (scanId: string) => `/api/scans/${enc(scanId)}/follow-ink`,
   series: '/api/series',
   seriesCsv: '/api/series.csv',
   people: '/api/people',

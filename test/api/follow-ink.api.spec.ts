@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { followInkPath, type FollowInkResult } from '@shared/api/follow-ink';
+import type { FollowInkResult } from '@shared/api/follow-ink';
 import { API } from '@shared/api/routes';
 import type { ScanDetail } from '@shared/api/scans';
 import { fitRegistration, pixelToReading } from '@shared/domain/registration';
@@ -27,7 +27,7 @@ describe('Follow ink', () => {
   let scanId: string;
 
   function follow(body: unknown, token = volunteer.token) {
-    return request(context.app).post(followInkPath(scanId)).set('Authorization', `Bearer ${token}`).send(body as object);
+    return request(context.app).post(API.scanFollowInk(scanId)).set('Authorization', `Bearer ${token}`).send(body as object);
   }
 
   beforeAll(async () => {

@@ -1,6 +1,5 @@
 import fs from 'node:fs/promises';
 import request from 'supertest';
-import { followInkPath } from '@shared/api/follow-ink';
 import type { Role } from '@shared/api/roles';
 import { ROLES } from '@shared/api/roles';
 import { API, IIIF } from '@shared/api/routes';
@@ -220,7 +219,7 @@ describe('who may call each route', () => {
       name: 'POST /api/scans/:scanId/follow-ink',
       roles: ['volunteer'],
       successStatus: 200,
-      call: (token) => withToken(request(context.app).post(followInkPath(scanId)), token).send({ pins: syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 8).pins }),
+      call: (token) => withToken(request(context.app).post(API.scanFollowInk(scanId)), token).send({ pins: syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 8).pins }),
     },
     {
       name: 'GET /api/series',
