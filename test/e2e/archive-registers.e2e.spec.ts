@@ -8,7 +8,7 @@ import { rmSync } from 'node:fs';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import type { RunningServer } from '../../server/server';
 import { startE2eServer } from '../helpers/e2e-server';
-import { chooseOption, launchChromium, signIn, type BrowserSession } from '../helpers/browser';
+import { chooseOption, launchChromium, signIn, waitForDialogReady, type BrowserSession } from '../helpers/browser';
 
 
 jest.setTimeout(180_000);
@@ -39,6 +39,7 @@ describe('the archive registers', () => {
     // Act 1: a new station through the dialog.
     await page.getByTestId('archive-tab-stations').click();
     await page.getByTestId('station-new').click();
+    await waitForDialogReady(page);
     await page.getByTestId('station-code').fill(code);
     await page.getByTestId('station-name').fill('Glenmarrow Lighthouse');
     await page.getByTestId('station-wigos').fill('0-20000-0-99871');
@@ -51,6 +52,10 @@ describe('the archive registers', () => {
     await page.getByTestId('station-history').fill('Keeper kept the barograph in the watch room (invented).');
     await chooseOption(page, 'station-time-standard', 'UTC');
     await page.getByTestId('station-save').click();
+    // The dialog closes only when the server stored the station; if it stays, its message says why.
+    await page.getByTestId('station-save').waitFor({ state: 'detached' }).catch(async (error: unknown) => {
+      throw new Error(`the station dialog stayed open: ${await page.locator('mat-dialog-container').innerText()}\n${String(error)}`);
+    });
     const row = page.getByTestId('station-row').filter({ hasText: code });
     await row.waitFor();
     const rowText = await row.textContent();
@@ -58,6 +63,7 @@ describe('the archive registers', () => {
     // Act 2: its barograph.
     await row.getByRole('link', { name: code }).click();
     await page.getByTestId('instrument-new').click();
+    await waitForDialogReady(page);
     await page.getByTestId('instrument-serial').fill('B-2231');
     await page.getByTestId('instrument-maker').fill('Harlow & Pike');
     await page.getByTestId('instrument-installed').fill('1928-05-01');

@@ -45,4 +45,14 @@ export async function signOut(page: Page): Promise<void> {
 export async function chooseOption(page: Page, testId: string, optionText: string): Promise<void> {
   await page.getByTestId(testId).click();
   await page.getByRole('option', { name: optionText }).click();
+  // The panel animates out; the next click must not land on its backdrop while it goes.
+  await page.locator('.mat-mdc-select-panel').waitFor({ state: 'detached' });
+}
+
+/**
+ * Waits until a Material dialog has finished opening. The dialog moves focus to its first field when its
+ * open animation ends; text typed before then can land in that field instead of the one addressed.
+ */
+export async function waitForDialogReady(page: Page): Promise<void> {
+  await page.waitForFunction(() => document.activeElement?.closest('mat-dialog-container') != null);
 }
