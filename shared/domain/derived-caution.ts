@@ -1,4 +1,4 @@
 /** The caution shown beside every derived number (pressure altitude, altimeter setting, sea-level pressure, tendency, fronts). */
 export const DERIVED_CAUTION =
-  'Derived from a digitised barogram for research and teaching only, not for aviation or navigation. ' +
+  'Derived from a digitized barogram for research and teaching only, not for aviation or navigation. ' +
   'Defer to official observations and local rules.';
