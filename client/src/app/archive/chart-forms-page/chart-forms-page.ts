@@ -1,19 +1,19 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
+import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import type { ChartFormSummary } from '@shared/api/chart-forms';
-import { catchError, map, of } from 'rxjs';
+import { CHART_FORM_SORT_KEYS, type ChartFormSortKey, type ChartFormSummary } from '@shared/api/chart-forms';
+import { DEFAULT_PAGE_SIZE } from '@shared/api/paging';
 
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
-import { ApiError } from '../../core/http/api-error';
+import { createPagedList } from '../../shared/paged-list/paged-list';
 
 /** The library of printed chart types. */
 @Component({
   selector: 'isl-chart-forms-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatTableModule],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatTableModule],
   template: `
     <section class="isl-page">
       <header class="isl-form-row header">
@@ -21,10 +21,10 @@ import { ApiError } from '../../core/http/api-error';
         <span class="spacer"></span>
         <a mat-flat-button routerLink="/archive/chart-forms/new" data-testid="chart-form-new"><mat-icon>add</mat-icon> New chart form</a>
       </header>
-      @if (view().failure; as failure) {
+      @if (forms.failure(); as failure) {
         <p class="isl-inline-error" role="alert">{{ failure }}</p>
       }
-      <table mat-table class="isl-table" [dataSource]="view().forms">
+      <table mat-table class="isl-table" [dataSource]="forms.rows()">
         <ng-container matColumnDef="name">
           <th mat-header-cell *matHeaderCellDef>Name</th>
           <td mat-cell *matCellDef="let f"><a [routerLink]="['/archive/chart-forms', f.id]">{{ f.name }}</a></td>
@@ -53,6 +53,14 @@ import { ApiError } from '../../core/http/api-error';
         <tr mat-row *matRowDef="let f; columns: columns" data-testid="chart-form-row"></tr>
         <tr class="mat-mdc-row" *matNoDataRow><td class="mat-mdc-cell" [attr.colspan]="columns.length">No chart forms yet.</td></tr>
       </table>
+      <mat-paginator
+        [length]="forms.total()"
+        [pageIndex]="forms.query().page"
+        [pageSize]="forms.query().pageSize"
+        [pageSizeOptions]="[10, 25, 50]"
+        (page)="forms.turnPage($event)"
+        aria-label="Chart form pages"
+      />
     </section>
   `,
   styles: `
@@ -64,13 +72,11 @@ import { ApiError } from '../../core/http/api-error';
 })
 export class ChartFormsPage {
   protected readonly columns = ['name', 'range', 'drum', 'scale', 'arm', 'scanCount'];
-  protected readonly view = toSignal(
-    inject(ChartFormsApi)
-      .listForSelect()
-      .pipe(
-        map((page) => ({ forms: page.items, failure: null as string | null })),
-        catchError((error: unknown) => of({ forms: [] as ChartFormSummary[], failure: error instanceof ApiError ? error.message : 'The chart forms could not be loaded.' })),
-      ),
-    { initialValue: { forms: [] as ChartFormSummary[], failure: null as string | null } },
-  );
+  private readonly chartFormsApi = inject(ChartFormsApi);
+  protected readonly forms = createPagedList<ChartFormSummary, ChartFormSortKey>({
+    initialQuery: { page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'name', direction: 'asc' },
+    sortKeys: CHART_FORM_SORT_KEYS,
+    load: (query) => this.chartFormsApi.list(query),
+    failureMessage: 'The chart forms could not be loaded.',
+  });
 }

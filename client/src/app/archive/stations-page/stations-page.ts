@@ -1,22 +1,22 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
+import { MatPaginatorModule } from '@angular/material/paginator';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
-import type { StationSummary } from '@shared/api/stations';
-import { catchError, map, of, switchMap } from 'rxjs';
+import { DEFAULT_PAGE_SIZE } from '@shared/api/paging';
+import { STATION_SORT_KEYS, type StationSortKey, type StationSummary } from '@shared/api/stations';
 
 import { StationsApi } from '../../core/api/stations-api';
-import { ApiError } from '../../core/http/api-error';
+import { createPagedList } from '../../shared/paged-list/paged-list';
 import { StationDialog, type StationDialogData } from '../station-dialog/station-dialog';
 
 /** The stations register: every station with its identifiers, heights and time keeping. */
 @Component({
   selector: 'isl-stations-page',
-  imports: [DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatTableModule],
+  imports: [DecimalPipe, RouterLink, MatButtonModule, MatIconModule, MatPaginatorModule, MatTableModule],
   template: `
     <section class="isl-page">
       <header class="isl-form-row header">
@@ -24,10 +24,10 @@ import { StationDialog, type StationDialogData } from '../station-dialog/station
         <span class="spacer"></span>
         <button mat-flat-button type="button" (click)="createStation()" data-testid="station-new"><mat-icon>add_location_alt</mat-icon> New station</button>
       </header>
-      @if (view().failure; as failure) {
+      @if (stations.failure(); as failure) {
         <p class="isl-inline-error" role="alert">{{ failure }}</p>
       }
-      <table mat-table class="isl-table" [dataSource]="view().stations">
+      <table mat-table class="isl-table" [dataSource]="stations.rows()">
         <ng-container matColumnDef="code">
           <th mat-header-cell *matHeaderCellDef>Code</th>
           <td mat-cell *matCellDef="let s"><a [routerLink]="['/archive/stations', s.id]">{{ s.code }}</a></td>
@@ -72,6 +72,14 @@ import { StationDialog, type StationDialogData } from '../station-dialog/station
         <tr mat-row *matRowDef="let s; columns: columns" data-testid="station-row"></tr>
         <tr class="mat-mdc-row" *matNoDataRow><td class="mat-mdc-cell" [attr.colspan]="columns.length">No stations yet.</td></tr>
       </table>
+      <mat-paginator
+        [length]="stations.total()"
+        [pageIndex]="stations.query().page"
+        [pageSize]="stations.query().pageSize"
+        [pageSizeOptions]="[10, 25, 50]"
+        (page)="stations.turnPage($event)"
+        aria-label="Station pages"
+      />
     </section>
   `,
   styles: `
@@ -86,18 +94,12 @@ export class StationsPage {
   private readonly dialog = inject(MatDialog);
 
   protected readonly columns = ['code', 'name', 'wigosId', 'position', 'elevationM', 'barometerHeightM', 'timeZone', 'timeStandard', 'edit'];
-  private readonly reloads = signal(0);
-  protected readonly view = toSignal(
-    toObservable(this.reloads).pipe(
-      switchMap(() =>
-        this.stationsApi.listForSelect().pipe(
-          map((page) => ({ stations: page.items, failure: null as string | null })),
-          catchError((error: unknown) => of({ stations: [] as StationSummary[], failure: error instanceof ApiError ? error.message : 'The stations could not be loaded.' })),
-        ),
-      ),
-    ),
-    { initialValue: { stations: [] as StationSummary[], failure: null as string | null } },
-  );
+  protected readonly stations = createPagedList<StationSummary, StationSortKey>({
+    initialQuery: { page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'name', direction: 'asc' },
+    sortKeys: STATION_SORT_KEYS,
+    load: (query) => this.stationsApi.list(query),
+    failureMessage: 'The stations could not be loaded.',
+  });
 
   protected createStation(): void {
     this.openDialog({ station: null });
@@ -112,7 +114,7 @@ export class StationsPage {
       .open<StationDialog, StationDialogData, StationSummary>(StationDialog, { data, width: '680px', maxWidth: '95vw' })
       .afterClosed()
       .subscribe((saved) => {
-        if (saved) this.reloads.update((n) => n + 1);
+        if (saved) this.stations.reload();
       });
   }
 }

@@ -1,8 +1,8 @@
 import { HttpClient } from '@angular/common/http';
 import { inject, Injectable } from '@angular/core';
 import type { Observable } from 'rxjs';
-import type { ChartFormInput, ChartFormPatch, ChartFormSummary } from '@shared/api/chart-forms';
-import { MAX_PAGE_SIZE, type Page } from '@shared/api/paging';
+import type { ChartFormInput, ChartFormPatch, ChartFormSortKey, ChartFormSummary } from '@shared/api/chart-forms';
+import { MAX_PAGE_SIZE, type Page, type PageQuery } from '@shared/api/paging';
 import { API } from '@shared/api/routes';
 
 import { toPageParams } from './page-params';
@@ -12,10 +12,14 @@ import { toPageParams } from './page-params';
 export class ChartFormsApi {
   private readonly http = inject(HttpClient);
 
-  /** Chart forms by name, as many as one page holds: enough for a select and for the register's table. */
+  /** Chart forms by name, as many as one page holds: enough for a select. */
   listForSelect(): Observable<Page<ChartFormSummary>> {
-    const params = toPageParams({ page: 0, pageSize: MAX_PAGE_SIZE, sort: 'name', direction: 'asc' });
-    return this.http.get<Page<ChartFormSummary>>(API.chartForms, { params });
+    return this.list({ page: 0, pageSize: MAX_PAGE_SIZE, sort: 'name', direction: 'asc' });
+  }
+
+  /** One page of the register. */
+  list(query: PageQuery<ChartFormSortKey>): Observable<Page<ChartFormSummary>> {
+    return this.http.get<Page<ChartFormSummary>>(API.chartForms, { params: toPageParams(query) });
   }
 
   get(chartFormId: string): Observable<ChartFormSummary> {
