@@ -1,7 +1,8 @@
 /**
  * `npm test`: starts a throwaway PostgreSQL on a free loopback port, runs every suite one after another
  * (unit, client, api, e2e), prints each suite's counts, and removes the cluster whatever happened.
- * `npx tsx scripts/test.ts api e2e` runs only the named suites.
+ * `npx tsx scripts/test.ts api e2e` runs only the named suites; words after `--` go to jest as path
+ * patterns (`npx tsx scripts/test.ts api -- people` runs the API specs whose path holds "people").
  */
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -32,13 +33,14 @@ function pickSuites(args: string[]): Suite[] {
   return args as Suite[];
 }
 
-async function runSuite(suite: Suite, env: NodeJS.ProcessEnv, workDir: string): Promise<SuiteResult> {
+async function runSuite(suite: Suite, env: NodeJS.ProcessEnv, workDir: string, patterns: string[]): Promise<SuiteResult> {
   const started = Date.now();
   const report = join(workDir, `${suite}.json`);
   const inBand = suite === 'api' || suite === 'e2e';
   const args = ['--selectProjects', suite, '--json', `--outputFile=${report}`, '--ci'];
   if (inBand) args.push('--runInBand');
   else args.push('--maxWorkers=2');
+  args.push(...patterns);
   console.log(`\n━━ ${suite} suite ━━`);
   const exitCode = await runCommand(join(ROOT, 'node_modules', '.bin', 'jest'), args, { cwd: ROOT, env });
   let passed = 0;
@@ -57,7 +59,10 @@ async function runSuite(suite: Suite, env: NodeJS.ProcessEnv, workDir: string): 
 }
 
 async function main(): Promise<number> {
-  const suites = pickSuites(process.argv.slice(2));
+  const argv = process.argv.slice(2);
+  const split = argv.indexOf('--');
+  const suites = pickSuites(split === -1 ? argv : argv.slice(0, split));
+  const patterns = split === -1 ? [] : argv.slice(split + 1);
   const workDir = mkdtempSync(join(tmpdir(), 'isallo-test-'));
   // PostgreSQL runs as its own account when we are root, so it must be able to enter the folder.
   chmodSync(workDir, 0o755);
@@ -89,7 +94,7 @@ async function main(): Promise<number> {
       env['CHROMIUM_PATH'] = await ensureChromium();
       env['CLIENT_DIR'] = await ensureClientBuild(ROOT);
     }
-    for (const suite of suites) results.push(await runSuite(suite, env, workDir));
+    for (const suite of suites) results.push(await runSuite(suite, env, workDir, patterns));
   } finally {
     await stopAll();
   }
