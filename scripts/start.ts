@@ -16,7 +16,8 @@ import { LocalPostgres } from './lib/local-postgres';
 
 const ROOT = resolve(__dirname, '..');
 const DATA_DIR = join(ROOT, '.data');
-const POSTGRES_PORT = 54329;
+// Both can be moved, so that two checkouts can run side by side (ISALLO_POSTGRES_PORT, PORT).
+const POSTGRES_PORT = Number(process.env['ISALLO_POSTGRES_PORT'] ?? 54329);
 const APP_PORT = 4300;
 /** How long the worker may take to finish the job in hand after Ctrl-C. */
 const WORKER_STOP_MS = 30_000;
