@@ -58,7 +58,7 @@ export async function loadScans(db: Db, scanCount: number): Promise<{ stationIds
         timestamptz '1890-01-06 08:00Z' + make_interval(days => (n * 7) % 36500, hours => n % 5) as start_at
       from generate_series(1, ${scanCount}) n
     )
-    insert into scan (sha256, storage_key, media_type, size_bytes, width_px, height_px, station_id, chart_form_id, period_start,
+    insert into scan (sha256, storage_key, media_type, size_bytes, width_px, height_px, station_id, chart_form_id, chart_start,
                       chart_on, chart_off, status, original_name, uploaded_by, batch_id, instrument_id, observer, box, folder, tags,
                       transcription, derivative_state)
     select lpad(to_hex(n), 64, '0'), 'masters/00/' || n || '.tif', 'image/tiff', 40000000, 7000, 2600,
@@ -143,7 +143,7 @@ async function main(): Promise<void> {
 
     const year = (y: number) => ({ from: new Date(Date.UTC(y, 0, 1)), to: new Date(Date.UTC(y, 11, 31, 23, 59)) });
     const mixes: Mix[] = [
-      { name: 'no filter, by period', filter: {} },
+      { name: 'no filter, by chart start', filter: {} },
       { name: 'station', filter: { stationId: ids.stationIds[3] } },
       { name: 'status traced', filter: { status: 'traced' } },
       { name: 'station + one year', filter: { stationId: ids.stationIds[5], ...year(1931) } },
@@ -157,7 +157,7 @@ async function main(): Promise<void> {
       { name: 'instrument', filter: { instrumentId: ids.instrumentIds[0] } },
       { name: 'chart form + status, by station name', filter: { chartFormId: ids.chartFormIds[0], status: 'approved' }, query: { sort: 'stationName' } },
       { name: 'batch', filter: { batchId: ids.batchIds[10] } },
-      { name: 'no filter, newest period first', filter: {}, query: { direction: 'desc' } },
+      { name: 'no filter, newest chart start', filter: {}, query: { direction: 'desc' } },
       { name: 'status, page 40', filter: { status: 'approved' }, query: { page: 40 } },
       { name: 'status counts, no filter', filter: {}, isCounts: true },
       { name: 'status counts, station + year', filter: { stationId: ids.stationIds[2], ...year(1950) }, isCounts: true },
@@ -166,7 +166,7 @@ async function main(): Promise<void> {
     const rows: string[][] = [];
     const plans: string[] = [];
     for (const mix of mixes) {
-      const query: PageQuery<ScanSortKey> = { page: 0, pageSize: 25, sort: 'periodStart', direction: 'asc', ...mix.query };
+      const query: PageQuery<ScanSortKey> = { page: 0, pageSize: 25, sort: 'chartStart', direction: 'asc', ...mix.query };
       const explainedFilter = await withLongestSpan(db, mix.filter);
       let serverMs: number;
       let explainedMs: number;

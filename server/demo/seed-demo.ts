@@ -114,7 +114,7 @@ export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promis
   if (sample) {
     const archivistId = personIds.get('archivist@isallo.test') as string;
     const volunteerId = personIds.get('volunteer@isallo.test') as string;
-    const fields = { stationId: kestrelRidge.id, chartFormId: weeklyForm.id, periodStart: new Date(sample.chartStart) };
+    const fields = { stationId: kestrelRidge.id, chartFormId: weeklyForm.id, chartStart: new Date(sample.chartStart) };
     const ready = await uploadOrReuse(
       deps,
       { tempPath: await stageFile(storage, sample.imagePath), originalName: 'demo-weekly.png' },

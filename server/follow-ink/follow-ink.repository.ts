@@ -4,7 +4,7 @@ import type { DbOrTrx } from '../db/database';
 export interface ScanToFollow {
   status: string;
   chartFormId: string | null;
-  periodStart: Date | null;
+  chartStart: Date | null;
   chartOn: Date | null;
   chartOff: Date | null;
 }
@@ -12,10 +12,10 @@ export interface ScanToFollow {
 export async function findScanToFollow(db: DbOrTrx, scanId: string): Promise<ScanToFollow | undefined> {
   const row = await db
     .selectFrom('scan')
-    .select(['status', 'chart_form_id', 'period_start', 'chart_on', 'chart_off'])
+    .select(['status', 'chart_form_id', 'chart_start', 'chart_on', 'chart_off'])
     .where('id', '=', scanId)
     .executeTakeFirst();
   return row
-    ? { status: row.status, chartFormId: row.chart_form_id, periodStart: row.period_start, chartOn: row.chart_on, chartOff: row.chart_off }
+    ? { status: row.status, chartFormId: row.chart_form_id, chartStart: row.chart_start, chartOn: row.chart_on, chartOff: row.chart_off }
     : undefined;
 }

@@ -29,17 +29,17 @@ export async function followScanInk(db: Db, storage: Storage, scanId: string, re
   if (!TRACEABLE_STATUSES.includes(scan.status)) {
     throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
   }
-  if (!scan.chartFormId || !scan.periodStart) {
-    throw new AppError(HTTP.conflict, 'conflict', 'This scan has no chart form or period yet; catalogue it before tracing.');
+  if (!scan.chartFormId || !scan.chartStart) {
+    throw new AppError(HTTP.conflict, 'conflict', 'This scan has no chart form or chart start yet; catalogue it before tracing.');
   }
   const form = await chartFormsRepository.findChartFormById(db, scan.chartFormId);
   if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
-  const periodStartMs = scan.periodStart.getTime();
-  const fit = register(form, request, periodStartMs);
+  const chartStartMs = scan.chartStart.getTime();
+  const fit = register(form, request, chartStartMs);
 
   const image = await decodePage(db, storage, scanId);
   const hoursOf = (time: Date | null, fallback: number) =>
-    time === null ? fallback : Math.min(form.drumHours, Math.max(0, (time.getTime() - periodStartMs) / MS_PER_HOUR));
+    time === null ? fallback : Math.min(form.drumHours, Math.max(0, (time.getTime() - chartStartMs) / MS_PER_HOUR));
   const trace = followInk(image, form, fit, {
     startHours: hoursOf(scan.chartOn, 0),
     endHours: hoursOf(scan.chartOff, form.drumHours),
@@ -50,9 +50,9 @@ export async function followScanInk(db: Db, storage: Storage, scanId: string, re
   return { knots, spans, lineWidthPx: trace.lineWidthPx, elapsedMs: Date.now() - startedMs };
 }
 
-function register(form: ChartForm, request: FollowInkRequest, periodStartMs: number): RegistrationFit {
+function register(form: ChartForm, request: FollowInkRequest, chartStartMs: number): RegistrationFit {
   try {
-    return registerDraft(form, { pins: request.pins, knots: [] }, periodStartMs);
+    return registerDraft(form, { pins: request.pins, knots: [] }, chartStartMs);
   } catch (error) {
     if (!(error instanceof RegistrationError)) throw error;
     throw new AppError(HTTP.unprocessable, 'registration_failed', `The pins do not register the chart: ${error.message}.`, {

@@ -43,7 +43,7 @@ export async function getBoxCollection(db: Db, collection: string, box: string, 
     .where('box', '=', box)
     .orderBy('folder')
     .orderBy('item')
-    .orderBy('period_start')
+    .orderBy('chart_start')
     .orderBy('original_name')
     .orderBy('page_index')
     .execute();

@@ -13,7 +13,7 @@ const none = (text: string): LanguageMap => ({ none: [text] });
 /** The label of a scan's manifest: station and chart start, or the file name while those are unknown. */
 export function scanLabel(scan: ScanDetail): string {
   const station = scan.stationName ?? 'Unassigned station';
-  const when = scan.periodStart ? scan.periodStart.slice(0, 16).replace('T', ' ') + ' UTC' : scan.originalName;
+  const when = scan.chartStart ? scan.chartStart.slice(0, 16).replace('T', ' ') + ' UTC' : scan.originalName;
   return scan.pageCount > 1 ? `${station}, ${when} (page ${scan.pageIndex + 1} of ${scan.pageCount})` : `${station}, ${when}`;
 }
 
@@ -22,7 +22,7 @@ function metadataOf(scan: ScanDetail): { label: LanguageMap; value: LanguageMap 
     ['Station', scan.stationName],
     ['Chart form', scan.chartFormName],
     ['Instrument', scan.instrumentSerial],
-    ['Period start', scan.periodStart],
+    ['Chart start', scan.chartStart],
     ['Chart on', scan.chartOn],
     ['Chart off', scan.chartOff],
     ['Observer', scan.observer],
@@ -95,7 +95,7 @@ export function buildManifest(origin: string, scan: ScanDetail): Record<string, 
     ],
   };
   // navDate: xsd:dateTime with a zone; ours are ISO 8601 UTC with Z.
-  if (scan.periodStart) manifest['navDate'] = scan.periodStart.replace(/\.\d{3}Z$/, 'Z');
+  if (scan.chartStart) manifest['navDate'] = scan.chartStart.replace(/\.\d{3}Z$/, 'Z');
   return manifest;
 }
 

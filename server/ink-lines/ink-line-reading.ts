@@ -13,19 +13,19 @@ const SERIES_MAX_GAP_MINUTES = 180;
 /** Width of a barograph pen line on paper, mm (common practice: about 0.4 mm). */
 export const PEN_LINE_WIDTH_MM = 0.4;
 
-/** Pins as the fit wants them: hours after the chart's period start instead of ISO times. */
-export function toRegistrationPins(draft: InkLineDraft, periodStartMs: number): RegistrationPin[] {
+/** Pins as the fit wants them: hours after the chart's chart start instead of ISO times. */
+export function toRegistrationPins(draft: InkLineDraft, chartStartMs: number): RegistrationPin[] {
   return draft.pins.map((pin) => ({
     xPx: pin.xPx,
     yPx: pin.yPx,
-    hours: (Date.parse(pin.time) - periodStartMs) / MS_PER_HOUR,
+    hours: (Date.parse(pin.time) - chartStartMs) / MS_PER_HOUR,
     pressure: pin.pressure,
   }));
 }
 
 /** Fits the pins; throws RegistrationError for pins that cannot register the chart. */
-export function registerDraft(form: ChartForm, draft: InkLineDraft, periodStartMs: number): RegistrationFit {
-  return fitRegistration(form, toRegistrationPins(draft, periodStartMs));
+export function registerDraft(form: ChartForm, draft: InkLineDraft, chartStartMs: number): RegistrationFit {
+  return fitRegistration(form, toRegistrationPins(draft, chartStartMs));
 }
 
 /**
@@ -49,11 +49,11 @@ export function handInUncertaintyBudget(form: ChartForm, fit: RegistrationFit): 
  * its uncertainty (hPa, 1σ; null off scale). Gap points (no pressure) are left out: the series marks a gap by
  * the absence of points, since a SeriesPoint always carries a pressure.
  */
-export function readSeriesPoints(form: ChartForm, fit: RegistrationFit, draft: InkLineDraft, periodStartMs: number): NewSeriesPoint[] {
+export function readSeriesPoints(form: ChartForm, fit: RegistrationFit, draft: InkLineDraft, chartStartMs: number): NewSeriesPoint[] {
   const samples: TimedPressure[] = draft.knots.map((knot) => {
     const reading = pixelToReading(form, fit, knot.xPx, knot.yPx);
     return {
-      timeMs: periodStartMs + reading.hours * MS_PER_HOUR,
+      timeMs: chartStartMs + reading.hours * MS_PER_HOUR,
       pressureHpa: toHpa(reading.pressure, form.pressureUnit),
       isOffScale: reading.pressure < form.pressureMin || reading.pressure > form.pressureMax,
     };

@@ -22,23 +22,23 @@ export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft,
     if (!TRACEABLE_STATUSES.includes(scan.status)) {
       throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
     }
-    if (!scan.stationId || !scan.chartFormId || !scan.periodStart) {
-      throw new AppError(HTTP.conflict, 'conflict', 'This scan has no station, chart form or period yet; catalogue it before tracing.');
+    if (!scan.stationId || !scan.chartFormId || !scan.chartStart) {
+      throw new AppError(HTTP.conflict, 'conflict', 'This scan has no station, chart form or chart start yet; catalogue it before tracing.');
     }
     const form = await chartFormsRepository.findChartFormById(trx, scan.chartFormId);
     if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
-    const periodStartMs = scan.periodStart.getTime();
+    const chartStartMs = scan.chartStart.getTime();
 
     let fit;
     try {
-      fit = registerDraft(form, draft, periodStartMs);
+      fit = registerDraft(form, draft, chartStartMs);
     } catch (error) {
       if (!(error instanceof RegistrationError)) throw error;
       throw new AppError(HTTP.unprocessable, 'registration_failed', `The pins do not register the chart: ${error.message}.`, {
         reason: error.code,
       });
     }
-    const points = readSeriesPoints(form, fit, draft, periodStartMs);
+    const points = readSeriesPoints(form, fit, draft, chartStartMs);
 
     const pinSetId = await inkLinesRepository.insertPinSet(trx, { scanId, createdBy: authorId, pins: draft.pins, fit });
     const inkLine = await inkLinesRepository.insertInkLine(trx, {

@@ -12,20 +12,20 @@ function asRecord(body: unknown): Record<string, unknown> {
   return (typeof body === 'object' && body !== null ? body : {}) as Record<string, unknown>;
 }
 
-/** The issue-2 upload (POST /api/scans): station, chart form and period are all required. */
+/** The issue-2 upload (POST /api/scans): station, chart form and chart start are all required. */
 export function parseUploadFields(body: unknown, hasFile: boolean): Required<Omit<ParsedUploadFields, 'batchId'>> {
   const record = asRecord(body);
   const details: Record<string, string> = {};
   if (!hasFile) details['file'] = 'a scan file is required in the "file" part';
   if (!isUuid(record['stationId'])) details['stationId'] = 'stationId must be a station id';
   if (!isUuid(record['chartFormId'])) details['chartFormId'] = 'chartFormId must be a chart form id';
-  const periodStartMs = parseInstantMs(record['periodStart']);
-  if (periodStartMs === null) details['periodStart'] = 'periodStart must be an ISO 8601 UTC instant, e.g. 2026-03-02T00:00Z';
+  const chartStartMs = parseInstantMs(record['chartStart']);
+  if (chartStartMs === null) details['chartStart'] = 'chartStart must be an ISO 8601 UTC instant, e.g. 2026-03-02T00:00Z';
   if (Object.keys(details).length > 0) throw validationFailed(details, 'The upload has invalid fields.');
   return {
     stationId: record['stationId'] as string,
     chartFormId: record['chartFormId'] as string,
-    periodStart: new Date(periodStartMs as number),
+    chartStart: new Date(chartStartMs as number),
   };
 }
 
@@ -44,10 +44,10 @@ export function parseIntakeFields(body: unknown, hasFile: boolean): Omit<ParsedU
     if (isUuid(record['chartFormId'])) fields.chartFormId = record['chartFormId'];
     else details['chartFormId'] = 'chartFormId must be a chart form id';
   }
-  if (present('periodStart')) {
-    const periodStartMs = parseInstantMs(record['periodStart']);
-    if (periodStartMs === null) details['periodStart'] = 'periodStart must be an ISO 8601 UTC instant, e.g. 1931-03-02T08:00Z';
-    else fields.periodStart = new Date(periodStartMs);
+  if (present('chartStart')) {
+    const chartStartMs = parseInstantMs(record['chartStart']);
+    if (chartStartMs === null) details['chartStart'] = 'chartStart must be an ISO 8601 UTC instant, e.g. 1931-03-02T08:00Z';
+    else fields.chartStart = new Date(chartStartMs);
   }
   if (Object.keys(details).length > 0) throw validationFailed(details, 'The upload has invalid fields.');
   return fields;

@@ -9,7 +9,7 @@ const COLUMN_OF: Record<EditableField, keyof ScanTable> = {
   stationId: 'station_id',
   instrumentId: 'instrument_id',
   chartFormId: 'chart_form_id',
-  periodStart: 'period_start',
+  chartStart: 'chart_start',
   chartOn: 'chart_on',
   chartOff: 'chart_off',
   observer: 'observer',
@@ -24,7 +24,7 @@ const COLUMN_OF: Record<EditableField, keyof ScanTable> = {
   dpi: 'dpi',
 };
 
-const INSTANT_FIELDS = new Set<EditableField>(['periodStart', 'chartOn', 'chartOff']);
+const INSTANT_FIELDS = new Set<EditableField>(['chartStart', 'chartOn', 'chartOff']);
 
 function isSame(before: unknown, after: unknown): boolean {
   return JSON.stringify(before) === JSON.stringify(after);
@@ -46,4 +46,4 @@ export function diffScanMetadata(current: ScanDetail, patch: Omit<ScanMetadataIn
 }
 
 /** Fields tracing depends on: once a scan is traced they change only after it is returned to ready to trace. */
-export const TRACING_FIELDS: readonly EditableField[] = ['stationId', 'chartFormId', 'periodStart'];
+export const TRACING_FIELDS: readonly EditableField[] = ['stationId', 'chartFormId', 'chartStart'];

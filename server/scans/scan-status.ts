@@ -15,11 +15,11 @@ export const ALLOWED_STATUS_MOVES: Record<ScanStatus, readonly ScanStatus[]> = {
 };
 
 /** What a scan lacks before volunteers may trace it, as field names (empty when nothing). */
-export function missingForTracing(scan: Pick<ScanDetail, 'stationId' | 'chartFormId' | 'periodStart' | 'derivativeState'>): string[] {
+export function missingForTracing(scan: Pick<ScanDetail, 'stationId' | 'chartFormId' | 'chartStart' | 'derivativeState'>): string[] {
   const missing: string[] = [];
   if (!scan.stationId) missing.push('stationId');
   if (!scan.chartFormId) missing.push('chartFormId');
-  if (!scan.periodStart) missing.push('periodStart');
+  if (!scan.chartStart) missing.push('chartStart');
   if (scan.derivativeState !== 'ready') missing.push('derivativeState');
   return missing;
 }
@@ -27,7 +27,7 @@ export function missingForTracing(scan: Pick<ScanDetail, 'stationId' | 'chartFor
 const MISSING_LABELS: Record<string, string> = {
   stationId: 'a station',
   chartFormId: 'a chart form',
-  periodStart: 'a period start',
+  chartStart: 'a chart start',
   derivativeState: 'its derivatives (tiles and preview) ready',
 };
 

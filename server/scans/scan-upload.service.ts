@@ -18,11 +18,11 @@ export interface ReceivedFile {
   sha256?: string;
 }
 
-/** Catalogue fields an upload may carry; all three of station, form and period make a one-page scan ready to trace. */
+/** Catalogue fields an upload may carry; all three of station, form and chart start make a one-page scan ready to trace. */
 export interface ParsedUploadFields {
   stationId?: string;
   chartFormId?: string;
-  periodStart?: Date;
+  chartStart?: Date;
   batchId?: string;
 }
 
@@ -62,9 +62,9 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
     const previewKeys = [...previewTemps.keys()].map((pageIndex) => storage.previewKey(sha256, pageIndex));
     try {
       const isSinglePage = master.pages.length === 1;
-      // A period belongs to one chart: on a many-page master it is set page by page later.
-      const periodStart = isSinglePage ? (fields.periodStart ?? null) : null;
-      const isReady = Boolean(fields.stationId && fields.chartFormId && periodStart);
+      // A chart start belongs to one chart: on a many-page master it is set page by page later.
+      const chartStart = isSinglePage ? (fields.chartStart ?? null) : null;
+      const isReady = Boolean(fields.stationId && fields.chartFormId && chartStart);
       const rows: Insertable<ScanTable>[] = master.pages.map((page, pageIndex) => ({
         sha256,
         storage_key: stored.key,
@@ -78,7 +78,7 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
         orientation: page.orientation,
         station_id: fields.stationId ?? null,
         chart_form_id: fields.chartFormId ?? null,
-        period_start: periodStart,
+        chart_start: chartStart,
         batch_id: fields.batchId ?? null,
         status: isReady ? 'ready_to_trace' : 'received',
         original_name: file.originalName,

@@ -16,7 +16,7 @@ export interface ScanTable {
   height_px: number;
   station_id: string | null;
   chart_form_id: string | null;
-  period_start: Date | null;
+  chart_start: Date | null;
   status: ScanStatus;
   original_name: string;
   uploaded_by: string;

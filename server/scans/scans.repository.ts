@@ -12,7 +12,7 @@ import type { ScanTable } from './scan.table';
 export type { ScanFilter } from './scan-filters';
 
 const SORT_COLUMNS = {
-  periodStart: 'scan.period_start',
+  chartStart: 'scan.chart_start',
   uploadedAt: 'scan.uploaded_at',
   stationName: 'station.name',
   status: 'scan.status',
@@ -27,12 +27,12 @@ const SORT_COLUMNS = {
  */
 export function buildCatalogueQueries(db: DbOrTrx, filter: ScanFilter, query: PageQuery<ScanSortKey>) {
   const where = scanFilterWhere(filter);
-  const sort = query.sort ?? 'periodStart';
+  const sort = query.sort ?? 'chartStart';
   const base = sort === 'stationName' ? db.selectFrom('scan').leftJoin('station', 'station.id', 'scan.station_id') : db.selectFrom('scan');
   const ids = base
     .select('scan.id')
     .where(where)
-    // Scans still without a period (or station) sort last either way, after the known ones.
+    // Scans still without a chart start (or station) sort last either way, after the known ones.
     // station.name is joined only for its own sort, so the column is named by reference here.
     .orderBy(sql.ref(SORT_COLUMNS[sort]), (ob) => (query.direction === 'asc' ? ob.asc().nullsLast() : ob.desc().nullsLast()))
     .orderBy('scan.id')
@@ -228,14 +228,14 @@ export async function findScanIdsNeedingDerivatives(db: DbOrTrx): Promise<string
 export async function findScanForTracing(
   db: DbOrTrx,
   scanId: string,
-): Promise<{ id: string; stationId: string | null; chartFormId: string | null; periodStart: Date | null; status: ScanStatus } | undefined> {
+): Promise<{ id: string; stationId: string | null; chartFormId: string | null; chartStart: Date | null; status: ScanStatus } | undefined> {
   const row = await db
     .selectFrom('scan')
-    .select(['id', 'station_id', 'chart_form_id', 'period_start', 'status'])
+    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'status'])
     .where('id', '=', scanId)
     .forUpdate()
     .executeTakeFirst();
   return row
-    ? { id: row.id, stationId: row.station_id, chartFormId: row.chart_form_id, periodStart: row.period_start, status: row.status }
+    ? { id: row.id, stationId: row.station_id, chartFormId: row.chart_form_id, chartStart: row.chart_start, status: row.status }
     : undefined;
 }

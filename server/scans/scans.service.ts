@@ -23,7 +23,7 @@ function scanNotFound(): AppError {
   return new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
 }
 
-/** The issue-2 upload: one file with station, chart form and period; answers its first page's scan. */
+/** The issue-2 upload: one file with station, chart form and chart start; answers its first page's scan. */
 export async function uploadScan(deps: ScanDeps, file: ReceivedFile, fields: ParsedUploadFields, uploadedBy: string): Promise<ScanDetail> {
   const [first] = await uploadMaster(deps, file, fields, uploadedBy);
   return first;
@@ -83,14 +83,14 @@ export async function applyScanMetadata(
       throw new AppError(
         HTTP.conflict,
         'conflict',
-        `The station, chart form and period of a ${SCAN_STATUS_LABELS[current.status]} scan are what its ink line was read with; return it to ready to trace first.`,
+        `The station, chart form and chart start of a ${SCAN_STATUS_LABELS[current.status]} scan are what its ink line was read with; return it to ready to trace first.`,
       );
     }
     const merged = { ...current, ...patch } as ScanDetail;
     if (current.status === 'ready_to_trace') {
       const missing = missingForTracing(merged).filter((field) => field !== 'derivativeState');
       if (missing.length > 0) {
-        throw new AppError(HTTP.conflict, 'conflict', 'A scan that is ready to trace needs its station, chart form and period start.', { missing });
+        throw new AppError(HTTP.conflict, 'conflict', 'A scan that is ready to trace needs its station, chart form and chart start.', { missing });
       }
     }
     if ('instrumentId' in changes || 'stationId' in changes) await checkInstrumentStation(trx, merged.instrumentId, merged.stationId);

@@ -53,7 +53,7 @@ export interface IntakeFileFields {
   stationId?: string;
   chartFormId?: string;
   /** ISO 8601 UTC. */
-  periodStart?: string;
+  chartStart?: string;
 }
 
 /**

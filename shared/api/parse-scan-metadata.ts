@@ -18,7 +18,7 @@ export function parseScanMetadataInput(body: unknown): Parsed<ScanMetadataInput>
     const id = reader.nullableId(key);
     if (id !== undefined) value[key] = id;
   }
-  for (const key of ['periodStart', 'chartOn', 'chartOff'] as const) {
+  for (const key of ['chartStart', 'chartOn', 'chartOff'] as const) {
     const instant = reader.nullableInstant(key);
     if (instant !== undefined) value[key] = instant;
   }

@@ -58,8 +58,8 @@ describe('shared body parsers', () => {
   });
 
   it.each([
-    ['a zoned period start', { version: 1, periodStart: '1931-03-02T08:00+01:00' }, []],
-    ['a local time without a zone', { version: 1, periodStart: '1931-03-02T08:00' }, ['periodStart']],
+    ['a zoned chart start', { version: 1, chartStart: '1931-03-02T08:00+01:00' }, []],
+    ['a local time without a zone', { version: 1, chartStart: '1931-03-02T08:00' }, ['chartStart']],
     ['chart off before chart on', { version: 1, chartOn: '1931-03-09T08:00Z', chartOff: '1931-03-02T08:00Z' }, ['chartOff']],
     ['a zero dpi', { version: 1, dpi: 0 }, ['dpi']],
     ['no version', { observer: 'A. Q.' }, ['version']],
@@ -71,9 +71,9 @@ describe('shared body parsers', () => {
   });
 
   it('when scan metadata has a zoned time and mixed-case tags, then the time is UTC and the tags are lower case once each', () => {
-    const parsed = parseScanMetadataInput({ version: 2, periodStart: '1931-03-02T08:00+01:00', tags: ['Gale', 'gale', ' Snow '] });
+    const parsed = parseScanMetadataInput({ version: 2, chartStart: '1931-03-02T08:00+01:00', tags: ['Gale', 'gale', ' Snow '] });
 
-    expect(parsed).toEqual({ ok: true, value: { version: 2, periodStart: '1931-03-02T07:00:00.000Z', tags: ['gale', 'snow'] } });
+    expect(parsed).toEqual({ ok: true, value: { version: 2, chartStart: '1931-03-02T07:00:00.000Z', tags: ['gale', 'snow'] } });
   });
 
   it.each([

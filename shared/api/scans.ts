@@ -22,7 +22,7 @@ export interface ScanSummary {
   chartFormId: string | null;
   chartFormName: string | null;
   /** ISO 8601 UTC: the nominal chart-on time, i.e. the time at the chart's left edge line; null until known. */
-  periodStart: string | null;
+  chartStart: string | null;
   status: ScanStatus;
   /** File name as uploaded. */
   originalName: string;
@@ -92,7 +92,7 @@ export interface ScanMetadataInput {
   instrumentId?: string | null;
   chartFormId?: string | null;
   /** ISO 8601 UTC. */
-  periodStart?: string | null;
+  chartStart?: string | null;
   /** ISO 8601 UTC. */
   chartOn?: string | null;
   /** ISO 8601 UTC. */
@@ -136,7 +136,7 @@ export type ScanStatusCounts = Record<ScanStatus, number>;
 /** Catalogue filters of GET /api/scans and /api/scans/status-counts (query-string names). */
 export interface ScanFilters {
   stationId?: string;
-  /** ISO 8601 UTC; charts whose span [periodStart or chartOn, chartOff or periodStart + drum hours] overlaps [from, to]. */
+  /** ISO 8601 UTC; charts whose span [chartStart or chartOn, chartOff or chartStart + drum hours] overlaps [from, to]. */
   from?: string;
   to?: string;
   status?: ScanStatus;
@@ -153,8 +153,8 @@ export interface ScanFilters {
 export interface ScanUploadFields {
   stationId: string;
   chartFormId: string;
-  periodStart: string;
+  chartStart: string;
 }
 
-export const SCAN_SORT_KEYS = ['periodStart', 'uploadedAt', 'stationName', 'status', 'originalName'] as const;
+export const SCAN_SORT_KEYS = ['chartStart', 'uploadedAt', 'stationName', 'status', 'originalName'] as const;
 export type ScanSortKey = (typeof SCAN_SORT_KEYS)[number];

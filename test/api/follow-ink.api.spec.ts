@@ -47,7 +47,7 @@ describe('Follow ink', () => {
       .set('Authorization', `Bearer ${archivist.token}`)
       .field('stationId', stationId)
       .field('chartFormId', chartFormId)
-      .field('periodStart', PERIOD_START)
+      .field('chartStart', PERIOD_START)
       .attach('file', chart.image, `chart.${chart.extension}`);
     expect(uploaded.status).toBe(201);
     scanId = (uploaded.body as ScanDetail).id;

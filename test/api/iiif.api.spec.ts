@@ -43,7 +43,7 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
       .set('Authorization', `Bearer ${archivist.token}`)
       .field('stationId', station.id)
       .field('chartFormId', form.id)
-      .field('periodStart', '1931-03-02T08:00Z')
+      .field('chartStart', '1931-03-02T08:00Z')
       .attach('file', await makePng(1300, 700), 'kro-1931-w10.png');
     scanId = upload.body.scans[0].id;
     await request(context.app)

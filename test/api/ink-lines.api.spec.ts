@@ -33,7 +33,7 @@ describe('handing in an ink line', () => {
     const archivist = await createPerson(context.db, ['archivist']);
     stationId = (await createStation(context.db)).id;
     const form = await createChartForm(context.db);
-    scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: archivist.id, periodStart: PERIOD_START });
+    scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: archivist.id, chartStart: PERIOD_START });
   });
 
   afterAll(async () => {

@@ -80,21 +80,21 @@ describe('intake batches', () => {
     const result = response.body as IntakeFileResult;
     expect(result).toMatchObject({ fileName: 'kro-1931-w10.png', outcome: 'stored' });
     expect(result.scans).toHaveLength(1);
-    expect(result.scans[0]).toMatchObject({ status: 'received', stationId: null, chartFormId: null, periodStart: null, derivativeState: 'queued', pageIndex: 0, pageCount: 1 });
+    expect(result.scans[0]).toMatchObject({ status: 'received', stationId: null, chartFormId: null, chartStart: null, derivativeState: 'queued', pageIndex: 0, pageCount: 1 });
     const row = await context.db.selectFrom('scan').selectAll().where('id', '=', result.scans[0].id).executeTakeFirstOrThrow();
     expect(row.batch_id).toBe(batchId);
     const jobs = await context.db.selectFrom('pgboss.job' as never).selectAll().execute();
     expect(jobs).toEqual([expect.objectContaining({ name: 'scan-derivatives', data: { scanId: row.id }, retry_limit: 3, retry_backoff: true })]);
   });
 
-  it('when a one-page file carries station, chart form and period, then it goes straight to ready to trace', async () => {
+  it('when a one-page file carries station, chart form and chart start, then it goes straight to ready to trace', async () => {
     const station = await createStation(context.db);
     const form = await createChartForm(context.db);
 
-    const response = await sendFile(await makeJpeg(), 'week.jpg', { stationId: station.id, chartFormId: form.id, periodStart: '1931-03-02T08:00Z' });
+    const response = await sendFile(await makeJpeg(), 'week.jpg', { stationId: station.id, chartFormId: form.id, chartStart: '1931-03-02T08:00Z' });
 
     expect(response.status).toBe(201);
-    expect(response.body.scans[0]).toMatchObject({ status: 'ready_to_trace', stationId: station.id, chartFormId: form.id, periodStart: '1931-03-02T08:00:00.000Z' });
+    expect(response.body.scans[0]).toMatchObject({ status: 'ready_to_trace', stationId: station.id, chartFormId: form.id, chartStart: '1931-03-02T08:00:00.000Z' });
   });
 
   it('when a three-page TIFF arrives, then each page becomes a scan sharing the master, with the dpi from the file', async () => {

@@ -195,7 +195,7 @@ describe('registers: stations, instruments, chart forms', () => {
     it('when a form is used by a scan, then editing it answers 409 saying to create a new chart form', async () => {
       const form = await createChartForm(context.db);
       const station = await createStation(context.db);
-      await createScanRow(context.db, { stationId: station.id, chartFormId: form.id, uploadedBy: archivist.id, periodStart: '1931-03-02T08:00Z' });
+      await createScanRow(context.db, { stationId: station.id, chartFormId: form.id, uploadedBy: archivist.id, chartStart: '1931-03-02T08:00Z' });
 
       const read = await request(context.app).get(API.chartForm(form.id)).set('Authorization', `Bearer ${teacher.token}`);
       const response = await asArchivist(request(context.app).patch(API.chartForm(form.id))).send({ version: 1, mmPerHour: 2 });

@@ -192,7 +192,7 @@ describe('who may call each route', () => {
         withToken(request(context.app).post(API.scans), token)
           .field('stationId', stationId)
           .field('chartFormId', chartFormId)
-          .field('periodStart', PERIOD_START)
+          .field('chartStart', PERIOD_START)
           .attach('file', await makePng(), 'chart.png'),
       sideEffectCount: () => count('scan'),
     },
@@ -251,12 +251,12 @@ describe('who may call each route', () => {
     instrumentId = (await instrumentsRepository.insertInstrument(context.db, stationId, { serial: 'I-1', maker: '', installedOn: null, removedOn: null, notes: '' })).id;
     editableFormId = (await createChartForm(context.db)).id;
     batchId = (await intakeRepository.insertBatch(context.db, 'roles', people.archivist.id)) as string;
-    statusScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, periodStart: null, status: 'received' });
-    failedScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, periodStart: null, status: 'received', derivativeState: 'failed' });
+    statusScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: null, status: 'received' });
+    failedScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: null, status: 'received', derivativeState: 'failed' });
     const scan = await scansService.uploadScan(
       context,
       { tempPath, originalName: 'role-table.png' },
-      { stationId, chartFormId, periodStart: new Date(PERIOD_START) },
+      { stationId, chartFormId, chartStart: new Date(PERIOD_START) },
       people.archivist.id,
     );
     scanId = scan.id;

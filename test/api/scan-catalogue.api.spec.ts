@@ -47,14 +47,14 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       instrumentId = (await request(context.app).post(API.stationInstruments(stationA)).set('Authorization', `Bearer ${archivist.token}`).send({ serial: 'B-1' })).body.id;
       batchId = (await asArchivist(request(context.app).post(API.intakeBatches)).send({ label: 'filters' })).body.id;
       const base = { uploadedBy: archivist.id };
-      // weekly-a: 2 to 9 March 1931 from its period and the form's 168 h drum.
-      await createScanRow(context.db, { ...base, stationId: stationA, chartFormId: weekly, periodStart: '1931-03-02T08:00Z', originalName: 'weekly-a.png', instrumentId, tags: ['gale', 'faint ink'], batchId });
+      // weekly-a: 2 to 9 March 1931 from its chart start and the form's 168 h drum.
+      await createScanRow(context.db, { ...base, stationId: stationA, chartFormId: weekly, chartStart: '1931-03-02T08:00Z', originalName: 'weekly-a.png', instrumentId, tags: ['gale', 'faint ink'], batchId });
       // daily-b: 10 March, 26 h.
-      await createScanRow(context.db, { ...base, stationId: stationA, chartFormId: daily, periodStart: '1931-03-10T08:00Z', originalName: 'daily-b.png', tags: ['gale'], status: 'traced' });
-      // written-c: no period, only the chart on/off times as written: 20 to 27 March.
-      await createScanRow(context.db, { ...base, stationId: stationB, chartFormId: null, periodStart: null, chartOn: '1931-03-20T09:00Z', chartOff: '1931-03-27T09:00Z', originalName: 'written-c.png', status: 'received', observer: 'Ada Quillfeather' });
+      await createScanRow(context.db, { ...base, stationId: stationA, chartFormId: daily, chartStart: '1931-03-10T08:00Z', originalName: 'daily-b.png', tags: ['gale'], status: 'traced' });
+      // written-c: no chart start, only the chart on/off times as written: 20 to 27 March.
+      await createScanRow(context.db, { ...base, stationId: stationB, chartFormId: null, chartStart: null, chartOn: '1931-03-20T09:00Z', chartOff: '1931-03-27T09:00Z', originalName: 'written-c.png', status: 'received', observer: 'Ada Quillfeather' });
       // bare-d: nothing known yet.
-      await createScanRow(context.db, { ...base, stationId: null, chartFormId: null, periodStart: null, originalName: 'bare-d.png', status: 'received', transcription: 'Clock stopped Tuesday, wound at noon' });
+      await createScanRow(context.db, { ...base, stationId: null, chartFormId: null, chartStart: null, originalName: 'bare-d.png', status: 'received', transcription: 'Clock stopped Tuesday, wound at noon' });
     });
 
     it.each([
@@ -68,7 +68,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       ['free text in a transcription', () => ({ q: 'clock wound' }), ['bare-d.png']],
       ['free text in an observer name', () => ({ q: 'quillfeather' }), ['written-c.png']],
       ['free text in a file name', () => ({ q: 'weekly' }), ['weekly-a.png']],
-      // Spans: weekly-a 2–9 Mar (period + 168 h), daily-b 10–11 Mar (period + 26 h), written-c 20–27 Mar (as written).
+      // Spans: weekly-a 2–9 Mar (chart start + 168 h), daily-b 10–11 Mar (chart start + 26 h), written-c 20–27 Mar (as written).
       ['a range inside weekly-a', () => ({ from: '1931-03-05T00:00Z', to: '1931-03-06T00:00Z' }), ['weekly-a.png']],
       ['a range touching the end of weekly-a and daily-b', () => ({ from: '1931-03-09T00:00Z', to: '1931-03-10T12:00Z' }), ['daily-b.png', 'weekly-a.png']],
       ['a range over written-c by its chart on/off', () => ({ from: '1931-03-25', to: '1931-03-26' }), ['written-c.png']],
@@ -88,8 +88,8 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       expect(response.body).toEqual<ScanStatusCounts>({ received: 0, ready_to_trace: 1, traced: 1, approved: 0, withdrawn: 0 });
     });
 
-    it('when the catalogue is sorted by period, then scans without a period come last', async () => {
-      const response = await request(context.app).get(API.scans).query({ sort: 'periodStart', direction: 'desc' }).set('Authorization', `Bearer ${volunteer.token}`);
+    it('when the catalogue is sorted by chart start, then scans without a chart start come last', async () => {
+      const response = await request(context.app).get(API.scans).query({ sort: 'chartStart', direction: 'desc' }).set('Authorization', `Bearer ${volunteer.token}`);
 
       expect(response.body.items.map((scan: ScanSummary) => scan.originalName).slice(0, 2)).toEqual(['daily-b.png', 'weekly-a.png']);
       expect(response.body.total).toBe(4);
@@ -111,17 +111,17 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
     beforeEach(async () => {
       stationId = (await createStation(context.db)).id;
       chartFormId = (await createChartForm(context.db)).id;
-      scanId = await createScanRow(context.db, { stationId: null, chartFormId: null, periodStart: null, uploadedBy: archivist.id, status: 'received' });
+      scanId = await createScanRow(context.db, { stationId: null, chartFormId: null, chartStart: null, uploadedBy: archivist.id, status: 'received' });
     });
 
     const patch = (body: Record<string, unknown>) => asArchivist(request(context.app).patch(API.scan(scanId))).send(body);
     const setStatus = (body: Record<string, unknown>) => asArchivist(request(context.app).post(API.scanStatus(scanId))).send(body);
 
     it('when the metadata is edited at its version, then the detail shows it and one audit row records before and after', async () => {
-      const response = await patch({ version: 1, stationId, chartFormId, periodStart: '1931-03-02T08:00+01:00', observer: 'A. Q.', tags: ['Gale', 'gale', ' storm '], box: '14', dpi: 300 });
+      const response = await patch({ version: 1, stationId, chartFormId, chartStart: '1931-03-02T08:00+01:00', observer: 'A. Q.', tags: ['Gale', 'gale', ' storm '], box: '14', dpi: 300 });
 
       expect(response.status).toBe(200);
-      expect(response.body).toMatchObject<Partial<ScanDetail>>({ stationId, chartFormId, periodStart: '1931-03-02T07:00:00.000Z', observer: 'A. Q.', tags: ['gale', 'storm'], box: '14', dpi: 300, version: 2 });
+      expect(response.body).toMatchObject<Partial<ScanDetail>>({ stationId, chartFormId, chartStart: '1931-03-02T07:00:00.000Z', observer: 'A. Q.', tags: ['gale', 'storm'], box: '14', dpi: 300, version: 2 });
       const audit = await asArchivist(request(context.app).get(API.scanAudit(scanId)));
       expect(audit.body.total).toBe(1);
       const [entry] = audit.body.items as ScanAuditEntry[];
@@ -129,7 +129,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       expect(entry.changes).toEqual({
         stationId: { before: null, after: stationId },
         chartFormId: { before: null, after: chartFormId },
-        periodStart: { before: null, after: '1931-03-02T07:00:00.000Z' },
+        chartStart: { before: null, after: '1931-03-02T07:00:00.000Z' },
         observer: { before: '', after: 'A. Q.' },
         tags: { before: [], after: ['gale', 'storm'] },
         box: { before: '', after: '14' },
@@ -160,18 +160,18 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       expect(Object.keys(response.body.error.details)).toEqual(['instrumentId']);
     });
 
-    it('when a scan lacks station, form and period, then ready to trace is refused naming each', async () => {
+    it('when a scan lacks station, form and chart start, then ready to trace is refused naming each', async () => {
       await context.db.updateTable('scan').set({ derivative_state: 'working' }).where('id', '=', scanId).execute();
 
       const response = await setStatus({ status: 'ready_to_trace' });
 
       expect(response.status).toBe(409);
-      expect(response.body.error.details).toEqual({ missing: ['stationId', 'chartFormId', 'periodStart', 'derivativeState'] });
-      expect(response.body.error.message).toMatch(/a station, a chart form, a period start/);
+      expect(response.body.error.details).toEqual({ missing: ['stationId', 'chartFormId', 'chartStart', 'derivativeState'] });
+      expect(response.body.error.message).toMatch(/a station, a chart form, a chart start/);
     });
 
     it('when a catalogued scan is made ready to trace, then the status changes and is audited', async () => {
-      await patch({ version: 1, stationId, chartFormId, periodStart: '1931-03-02T08:00Z' });
+      await patch({ version: 1, stationId, chartFormId, chartStart: '1931-03-02T08:00Z' });
 
       const response = await setStatus({ status: 'ready_to_trace' });
 
@@ -205,7 +205,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
     });
 
     it('when a traced scan\'s station is changed, then it answers 409 and nothing changes', async () => {
-      const traced = await createScanRow(context.db, { stationId, chartFormId, periodStart: '1931-03-02T08:00Z', uploadedBy: archivist.id, status: 'traced' });
+      const traced = await createScanRow(context.db, { stationId, chartFormId, chartStart: '1931-03-02T08:00Z', uploadedBy: archivist.id, status: 'traced' });
       const otherStation = (await createStation(context.db)).id;
 
       const response = await asArchivist(request(context.app).patch(API.scan(traced))).send({ version: 1, stationId: otherStation });
@@ -216,7 +216,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
     });
 
     it('when a ready-to-trace scan would lose its chart form, then it answers 409 naming it', async () => {
-      const ready = await createScanRow(context.db, { stationId, chartFormId, periodStart: '1931-03-02T08:00Z', uploadedBy: archivist.id });
+      const ready = await createScanRow(context.db, { stationId, chartFormId, chartStart: '1931-03-02T08:00Z', uploadedBy: archivist.id });
 
       const response = await asArchivist(request(context.app).patch(API.scan(ready))).send({ version: 1, chartFormId: null });
 
@@ -230,7 +230,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       expect(response.status).toBe(200);
       expect(Object.keys(response.body).sort()).toEqual(
         [
-          'id', 'stationId', 'stationName', 'chartFormId', 'chartFormName', 'periodStart', 'status', 'originalName', 'mediaType', 'sizeBytes',
+          'id', 'stationId', 'stationName', 'chartFormId', 'chartFormName', 'chartStart', 'status', 'originalName', 'mediaType', 'sizeBytes',
           'widthPx', 'heightPx', 'sha256', 'pageIndex', 'pageCount', 'uploadedAt', 'inkLineCount', 'derivativeState', 'chartOn', 'chartOff', 'tags',
           'instrumentId', 'instrumentSerial', 'batchId', 'observer', 'collection', 'box', 'folder', 'item', 'conditionNotes', 'notes', 'transcription',
           'withdrawnReason', 'dpi', 'orientation', 'derivativeError', 'derivativeAttempts', 'version',

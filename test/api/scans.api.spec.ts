@@ -18,7 +18,7 @@ describe('scan upload', () => {
   let stationId: string;
   let chartFormId: string;
 
-  function upload(file: Buffer, fileName: string, fields: Record<string, string> = { stationId, chartFormId, periodStart: PERIOD_START }) {
+  function upload(file: Buffer, fileName: string, fields: Record<string, string> = { stationId, chartFormId, chartStart: PERIOD_START }) {
     let call = request(context.app).post(API.scans).set('Authorization', `Bearer ${archivist.token}`);
     for (const [name, value] of Object.entries(fields)) call = call.field(name, value);
     return call.attach('file', file, fileName);
@@ -49,7 +49,7 @@ describe('scan upload', () => {
     await context.close();
   });
 
-  it('when a PNG is uploaded with station, chart form and period, then it is stored by hash and ready to trace', async () => {
+  it('when a PNG is uploaded with station, chart form and chart start, then it is stored by hash and ready to trace', async () => {
     const png = await makePng(80, 40);
     const sha256 = createHash('sha256').update(png).digest('hex');
 
@@ -60,7 +60,7 @@ describe('scan upload', () => {
     expect(scan).toMatchObject({
       stationId,
       chartFormId,
-      periodStart: '2026-03-02T00:00:00.000Z',
+      chartStart: '2026-03-02T00:00:00.000Z',
       status: 'ready_to_trace',
       originalName: 'kro-week-10.png',
       mediaType: 'image/png',
@@ -140,11 +140,11 @@ describe('scan upload', () => {
   });
 
   it('when fields are missing or malformed, then it answers 400 validation_failed naming each field', async () => {
-    const response = await upload(await makePng(), 'chart.png', { stationId: 'not-an-id', periodStart: '2026-03-02 00:00' });
+    const response = await upload(await makePng(), 'chart.png', { stationId: 'not-an-id', chartStart: '2026-03-02 00:00' });
 
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe('validation_failed');
-    expect(Object.keys(response.body.error.details).sort()).toEqual(['chartFormId', 'periodStart', 'stationId']);
+    expect(Object.keys(response.body.error.details).sort()).toEqual(['chartFormId', 'chartStart', 'stationId']);
     expect(await scanRowCount()).toBe(0);
   });
 
@@ -154,7 +154,7 @@ describe('scan upload', () => {
       .set('Authorization', `Bearer ${archivist.token}`)
       .field('stationId', stationId)
       .field('chartFormId', chartFormId)
-      .field('periodStart', PERIOD_START);
+      .field('chartStart', PERIOD_START);
 
     expect(response.status).toBe(400);
     expect(response.body.error.details).toEqual({ file: expect.any(String) });
@@ -164,7 +164,7 @@ describe('scan upload', () => {
     const response = await upload(await makePng(), 'chart.png', {
       stationId: '00000000-0000-4000-8000-000000000000',
       chartFormId,
-      periodStart: PERIOD_START,
+      chartStart: PERIOD_START,
     });
 
     expect(response.status).toBe(404);
@@ -176,7 +176,7 @@ describe('scan upload', () => {
     const response = await upload(await makePng(), 'chart.png', {
       stationId,
       chartFormId: '00000000-0000-4000-8000-000000000000',
-      periodStart: PERIOD_START,
+      chartStart: PERIOD_START,
     });
 
     expect(response.status).toBe(404);
@@ -287,7 +287,7 @@ describe('scan upload size limit', () => {
       .set('Authorization', `Bearer ${archivist.token}`)
       .field('stationId', station.id)
       .field('chartFormId', form.id)
-      .field('periodStart', PERIOD_START)
+      .field('chartStart', PERIOD_START)
       .attach('file', big, 'big.png');
 
     expect(response.status).toBe(413);

@@ -40,7 +40,7 @@ describe('station series and CSV export', () => {
     stationId = station.id;
     const otherStation = await createStation(context.db);
     const form = await createChartForm(context.db);
-    const scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, periodStart: '2026-03-01T00:00Z' });
+    const scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, chartStart: '2026-03-01T00:00Z' });
     inkLineId = await createInkLineWithPoints(context.db, { scanId, stationId, authorId: volunteer.id, points: SAVED_POINTS });
     // A draft's points and another station's points must never show up.
     await createInkLineWithPoints(context.db, {
@@ -54,7 +54,7 @@ describe('station series and CSV export', () => {
       stationId: otherStation.id,
       chartFormId: form.id,
       uploadedBy: volunteer.id,
-      periodStart: '2026-03-01T00:00Z',
+      chartStart: '2026-03-01T00:00Z',
     });
     await createInkLineWithPoints(context.db, {
       scanId: otherScanId,
@@ -167,7 +167,7 @@ describe('CSV export of a long series', () => {
     const volunteer = await createPerson(context.db, ['volunteer']);
     stationId = (await createStation(context.db)).id;
     const form = await createChartForm(context.db);
-    const scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, periodStart: '2020-01-01T00:00Z' });
+    const scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, chartStart: '2020-01-01T00:00Z' });
     // 26 000 hourly points: more than the JSON limit and more than several read batches. Each ink line runs
     // three hours into the next one's, as consecutive charts overlap at a chart change.
     const points = Array.from({ length: 26_000 }, (_, i) => ({
@@ -175,7 +175,7 @@ describe('CSV export of a long series', () => {
       pressureHpa: 1000 + (i % 100) / 10,
     }));
     for (let start = 0; start < points.length; start += 5000) {
-      const lineScanId = start === 0 ? scanId : await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, periodStart: '2020-01-01T00:00Z' });
+      const lineScanId = start === 0 ? scanId : await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, chartStart: '2020-01-01T00:00Z' });
       await createInkLineWithPoints(context.db, { scanId: lineScanId, stationId, authorId: volunteer.id, points: points.slice(start, start + 5003) });
     }
   });
@@ -227,7 +227,7 @@ describe('merging overlapping ink lines into one station series', () => {
 
   /** Hourly points of one ink line from `fromIso`, one pressure (hPa) per hour, each with the given uncertainty. */
   async function createLine(scan: { chartOn?: string; chartOff?: string }, fromIso: string, pressuresHpa: number[], uncertaintyHpa: number | null) {
-    const scanId = await createScanRow(context.db, { stationId, chartFormId: formId, uploadedBy: volunteer.id, periodStart: scan.chartOn ?? fromIso, ...scan });
+    const scanId = await createScanRow(context.db, { stationId, chartFormId: formId, uploadedBy: volunteer.id, chartStart: scan.chartOn ?? fromIso, ...scan });
     const fromMs = Date.parse(fromIso);
     const points = pressuresHpa.map((pressureHpa, i) => ({ time: new Date(fromMs + i * 3_600_000).toISOString(), pressureHpa }));
     const id = await createInkLineWithPoints(context.db, { scanId, stationId, authorId: volunteer.id, points });
@@ -346,7 +346,7 @@ describe('uncertainty of a handed-in trace', () => {
     volunteer = await createPerson(context.db, ['volunteer']);
     stationId = (await createStation(context.db)).id;
     const form = await createChartForm(context.db);
-    scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, periodStart: '2026-03-02T00:00:00Z' });
+    scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, chartStart: '2026-03-02T00:00:00Z' });
   });
 
   afterAll(async () => {

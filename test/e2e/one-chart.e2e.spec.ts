@@ -83,7 +83,7 @@ describe('one chart from upload to station series', () => {
     await page.getByTestId('upload-file').setInputFiles(scanPath);
     await chooseOption(page, 'upload-station', 'Saltmere Bay School');
     await chooseOption(page, 'upload-chart-form', 'Generated weekly 950–1050 hPa');
-    await page.getByTestId('upload-period-start').fill('2026-04-06T00:00Z');
+    await page.getByTestId('upload-chart-start').fill('2026-04-06T00:00Z');
     await page.getByTestId('upload-submit').click();
     await page.getByTestId('upload-result').filter({ hasText: /stored/i }).waitFor();
     await page.getByTestId('archive-tab-catalogue').click();

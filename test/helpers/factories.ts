@@ -71,7 +71,7 @@ export async function createScanRow(
     stationId: string | null;
     chartFormId: string | null;
     uploadedBy: string;
-    periodStart: string | null;
+    chartStart: string | null;
     status?: ScanStatus;
     chartOn?: string;
     chartOff?: string;
@@ -96,7 +96,7 @@ export async function createScanRow(
       height_px: 800,
       station_id: scan.stationId,
       chart_form_id: scan.chartFormId,
-      period_start: scan.periodStart === null ? null : new Date(scan.periodStart),
+      chart_start: scan.chartStart === null ? null : new Date(scan.chartStart),
       status: scan.status ?? 'ready_to_trace',
       original_name: scan.originalName ?? `scan-${n}.png`,
       uploaded_by: scan.uploadedBy,

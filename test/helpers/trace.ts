@@ -27,23 +27,23 @@ export function syntheticPressureHpa(hours: number): number {
   return 1000 + 12 * Math.sin((2 * Math.PI * hours) / 72);
 }
 
-function pinAt(form: ChartForm, periodStartMs: number, hours: number, pressure: number): PinInput {
+function pinAt(form: ChartForm, chartStartMs: number, hours: number, pressure: number): PinInput {
   const { xPx, yPx } = readingToPixel(form, syntheticPlacement(form), { hours, pressure });
-  return { xPx, yPx, time: new Date(periodStartMs + hours * MS_PER_HOUR).toISOString(), pressure };
+  return { xPx, yPx, time: new Date(chartStartMs + hours * MS_PER_HOUR).toISOString(), pressure };
 }
 
 /**
  * A hand-in for an hPa chart form: five pins on printed grid crossings and knots every 10 minutes
  * from `fromHours` to `toHours` along syntheticPressureHpa, all placed by syntheticPlacement.
  */
-export function syntheticDraft(form: ChartForm, periodStart: string, fromHours = 2, toHours = 26): InkLineDraft {
-  const periodStartMs = Date.parse(periodStart);
+export function syntheticDraft(form: ChartForm, chartStart: string, fromHours = 2, toHours = 26): InkLineDraft {
+  const chartStartMs = Date.parse(chartStart);
   const pins = [
-    pinAt(form, periodStartMs, 24, 1040),
-    pinAt(form, periodStartMs, 144, 1040),
-    pinAt(form, periodStartMs, 144, 960),
-    pinAt(form, periodStartMs, 24, 960),
-    pinAt(form, periodStartMs, 72, 1000),
+    pinAt(form, chartStartMs, 24, 1040),
+    pinAt(form, chartStartMs, 144, 1040),
+    pinAt(form, chartStartMs, 144, 960),
+    pinAt(form, chartStartMs, 24, 960),
+    pinAt(form, chartStartMs, 72, 1000),
   ];
   const knots = [];
   for (let minutes = fromHours * 60; minutes <= toHours * 60; minutes += 10) {
@@ -54,8 +54,8 @@ export function syntheticDraft(form: ChartForm, periodStart: string, fromHours =
 }
 
 /** Three pins on one printed pressure line: no registration can be fitted from them. */
-export function collinearDraft(form: ChartForm, periodStart: string): InkLineDraft {
-  const periodStartMs = Date.parse(periodStart);
-  const { knots } = syntheticDraft(form, periodStart);
-  return { pins: [pinAt(form, periodStartMs, 24, 1000), pinAt(form, periodStartMs, 72, 1000), pinAt(form, periodStartMs, 120, 1000)], knots };
+export function collinearDraft(form: ChartForm, chartStart: string): InkLineDraft {
+  const chartStartMs = Date.parse(chartStart);
+  const { knots } = syntheticDraft(form, chartStart);
+  return { pins: [pinAt(form, chartStartMs, 24, 1000), pinAt(form, chartStartMs, 72, 1000), pinAt(form, chartStartMs, 120, 1000)], knots };
 }

@@ -39,7 +39,7 @@ describe('IntakeApi', () => {
     expect(request.request.reportProgress).toBe(true);
     expect(body.get('stationId')).toBe('st-kro');
     expect(body.has('chartFormId')).toBe(false);
-    expect(body.has('periodStart')).toBe(false);
+    expect(body.has('chartStart')).toBe(false);
     expect((body.get('file') as File).name).toBe('kro-1931-box14-07.tif');
     expect(types).toContain(HttpEventType.UploadProgress);
   });

@@ -29,7 +29,7 @@ export class IntakeApi {
     const body = new FormData();
     if (fields.stationId) body.append('stationId', fields.stationId);
     if (fields.chartFormId) body.append('chartFormId', fields.chartFormId);
-    if (fields.periodStart) body.append('periodStart', fields.periodStart);
+    if (fields.chartStart) body.append('chartStart', fields.chartStart);
     body.append('file', file, file.name);
     return this.http.post<IntakeFileResult>(API.intakeBatchFiles(batchId), body, { reportProgress: true, observe: 'events' });
   }

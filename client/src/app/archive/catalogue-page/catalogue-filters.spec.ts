@@ -26,7 +26,7 @@ describe('catalogue filters in the address', () => {
         q: 'box 14',
         batchId: 'b-1',
       },
-      query: { page: 3, pageSize: 50, sort: 'periodStart' as const, direction: 'asc' as const },
+      query: { page: 3, pageSize: 50, sort: 'chartStart' as const, direction: 'asc' as const },
     };
 
     const params = roundTrip(paramsFromCatalogueState(state));

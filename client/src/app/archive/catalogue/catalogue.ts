@@ -43,7 +43,7 @@ export class Catalogue {
   /** Page and sort; two-way so the page can keep them in the address. */
   readonly query = model<PageQuery<ScanSortKey>>({ page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'uploadedAt', direction: 'desc' });
 
-  protected readonly columns = ['thumbnail', 'periodStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
+  protected readonly columns = ['thumbnail', 'chartStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
   protected readonly derivativeIcons = DERIVATIVE_ICONS;
   /** Bumped to reload; `quiet` reloads keep the progress bar still (they only refresh states). */
   private readonly reloads = signal({ count: 0, quiet: false });

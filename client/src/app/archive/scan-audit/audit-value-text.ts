@@ -11,7 +11,7 @@ const FIELD_LABELS: Readonly<Record<string, string>> = {
   stationId: 'station',
   instrumentId: 'instrument',
   chartFormId: 'chart form',
-  periodStart: 'period start',
+  chartStart: 'chart start',
   chartOn: 'chart on',
   chartOff: 'chart off',
   conditionNotes: 'condition notes',

@@ -7,7 +7,7 @@ export interface ScanMetadataValues {
   stationId: string;
   instrumentId: string;
   chartFormId: string;
-  periodStart: string;
+  chartStart: string;
   chartOn: string;
   chartOff: string;
   observer: string;
@@ -32,7 +32,7 @@ export function valuesOfScan(scan: ScanDetail): ScanMetadataValues {
     stationId: scan.stationId ?? '',
     instrumentId: scan.instrumentId ?? '',
     chartFormId: scan.chartFormId ?? '',
-    periodStart: instantText(scan.periodStart),
+    chartStart: instantText(scan.chartStart),
     chartOn: instantText(scan.chartOn),
     chartOff: instantText(scan.chartOff),
     observer: scan.observer,
@@ -69,7 +69,7 @@ export function scanMetadataChanges(scan: ScanDetail, values: ScanMetadataValues
   if (values.stationId !== before.stationId) input.stationId = idOrNull(values.stationId);
   if (values.instrumentId !== before.instrumentId) input.instrumentId = idOrNull(values.instrumentId);
   if (values.chartFormId !== before.chartFormId) input.chartFormId = idOrNull(values.chartFormId);
-  if (values.periodStart.trim() !== before.periodStart) input.periodStart = instantOrNull(values.periodStart);
+  if (values.chartStart.trim() !== before.chartStart) input.chartStart = instantOrNull(values.chartStart);
   if (values.chartOn.trim() !== before.chartOn) input.chartOn = instantOrNull(values.chartOn);
   if (values.chartOff.trim() !== before.chartOff) input.chartOff = instantOrNull(values.chartOff);
   for (const key of ['observer', 'collection', 'box', 'folder', 'item', 'conditionNotes', 'notes', 'transcription'] as const) {

@@ -55,7 +55,7 @@ export class ScanMetadataForm {
     stationId: [''],
     instrumentId: [''],
     chartFormId: [''],
-    periodStart: ['', utcInstantValidator],
+    chartStart: ['', utcInstantValidator],
     chartOn: ['', utcInstantValidator],
     chartOff: ['', utcInstantValidator],
     observer: [''],

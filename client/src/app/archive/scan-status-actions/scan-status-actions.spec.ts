@@ -17,9 +17,9 @@ function settle(): Promise<void> {
 
 describe('missingForTracing', () => {
   it('when a scan arrived without metadata and its tiles are still being made, then all four needs are named', () => {
-    const scan = scanDetailForTest({ stationId: null, chartFormId: null, periodStart: null, derivativeState: 'working' });
+    const scan = scanDetailForTest({ stationId: null, chartFormId: null, chartStart: null, derivativeState: 'working' });
 
-    expect(missingForTracing(scan)).toEqual(['station', 'chart form', 'period start', 'image tiles']);
+    expect(missingForTracing(scan)).toEqual(['station', 'chart form', 'chart start', 'image tiles']);
   });
 
   it('when everything is in place, then nothing is missing', () => {
@@ -61,12 +61,12 @@ describe('ScanStatusActions', () => {
   });
 
   it('when fields are missing, then Ready to trace waits and says what it needs', async () => {
-    const { fixture, loader } = await open(scanDetailForTest({ status: 'received', periodStart: null }));
+    const { fixture, loader } = await open(scanDetailForTest({ status: 'received', chartStart: null }));
 
     const ready = await loader.getHarness(MatButtonHarness.with({ text: /Ready to trace/ }));
 
     expect(await ready.isDisabled()).toBe(true);
-    expect((fixture.nativeElement as HTMLElement).textContent).toContain('it needs: period start');
+    expect((fixture.nativeElement as HTMLElement).textContent).toContain('it needs: chart start');
   });
 
   it('when the server refuses ready to trace, then the missing fields it names are shown', async () => {

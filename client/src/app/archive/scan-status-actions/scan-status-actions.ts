@@ -21,7 +21,7 @@ export function missingForTracing(scan: ScanDetail): string[] {
   const missing: string[] = [];
   if (!scan.stationId) missing.push('station');
   if (!scan.chartFormId) missing.push('chart form');
-  if (!scan.periodStart) missing.push('period start');
+  if (!scan.chartStart) missing.push('chart start');
   if (scan.derivativeState !== 'ready') missing.push('image tiles');
   return missing;
 }

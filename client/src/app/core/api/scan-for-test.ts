@@ -8,7 +8,7 @@ export function scanSummaryForTest(overrides: Partial<ScanSummary> = {}): ScanSu
     stationName: 'Kestrel Ridge Observatory',
     chartFormId: 'cf-1',
     chartFormName: 'Weekly 950–1050 hPa',
-    periodStart: '2026-03-02T00:00:00.000Z',
+    chartStart: '2026-03-02T00:00:00.000Z',
     status: 'ready_to_trace',
     originalName: 'kro-week-10.png',
     mediaType: 'image/png',

@@ -17,14 +17,14 @@ describe('ScansApi', () => {
   afterEach(() => controller.verify());
 
   it('when a catalogue page is asked for, then page, pageSize, sort, direction and the filters go in the query', () => {
-    api.list({ page: 2, pageSize: 50, sort: 'periodStart', direction: 'desc' }, { status: 'ready_to_trace', stationId: 'st-1' }).subscribe();
+    api.list({ page: 2, pageSize: 50, sort: 'chartStart', direction: 'desc' }, { status: 'ready_to_trace', stationId: 'st-1' }).subscribe();
 
     const request = controller.expectOne((r) => r.url === '/api/scans');
 
     expect(request.request.method).toBe('GET');
     expect(request.request.params.get('page')).toBe('2');
     expect(request.request.params.get('pageSize')).toBe('50');
-    expect(request.request.params.get('sort')).toBe('periodStart');
+    expect(request.request.params.get('sort')).toBe('chartStart');
     expect(request.request.params.get('direction')).toBe('desc');
     expect(request.request.params.get('status')).toBe('ready_to_trace');
     expect(request.request.params.get('stationId')).toBe('st-1');
@@ -42,7 +42,7 @@ describe('ScansApi', () => {
     const file = new File(['not really an image'], 'kro-week-10.png', { type: 'image/png' });
     const eventTypes: HttpEventType[] = [];
 
-    api.upload(file, { stationId: 'st-1', chartFormId: 'cf-1', periodStart: '2026-03-02T00:00:00.000Z' }).subscribe((event) => eventTypes.push(event.type));
+    api.upload(file, { stationId: 'st-1', chartFormId: 'cf-1', chartStart: '2026-03-02T00:00:00.000Z' }).subscribe((event) => eventTypes.push(event.type));
     const request = controller.expectOne('/api/scans');
     request.event({ type: HttpEventType.UploadProgress, loaded: 5, total: 10 });
     request.flush({ id: 'scan-1' }, { status: 201, statusText: 'Created' });
@@ -51,7 +51,7 @@ describe('ScansApi', () => {
     expect(request.request.reportProgress).toBe(true);
     expect(body.get('stationId')).toBe('st-1');
     expect(body.get('chartFormId')).toBe('cf-1');
-    expect(body.get('periodStart')).toBe('2026-03-02T00:00:00.000Z');
+    expect(body.get('chartStart')).toBe('2026-03-02T00:00:00.000Z');
     expect((body.get('file') as File).name).toBe('kro-week-10.png');
     expect(eventTypes).toContain(HttpEventType.UploadProgress);
     expect(eventTypes).toContain(HttpEventType.Response);

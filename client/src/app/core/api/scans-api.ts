@@ -84,7 +84,7 @@ export class ScansApi {
     const body = new FormData();
     body.append('stationId', fields.stationId);
     body.append('chartFormId', fields.chartFormId);
-    body.append('periodStart', fields.periodStart);
+    body.append('chartStart', fields.chartStart);
     body.append('file', file, file.name);
     return this.http.post<ScanDetail>(API.scans, body, { reportProgress: true, observe: 'events' });
   }

@@ -23,9 +23,9 @@ import { createPagedList } from '../../shared/paged-list/paged-list';
 export class DeskPage {
   private readonly scansApi = inject(ScansApi);
 
-  protected readonly columns = ['periodStart', 'stationName', 'chartFormName', 'inkLineCount', 'trace'];
+  protected readonly columns = ['chartStart', 'stationName', 'chartFormName', 'inkLineCount', 'trace'];
   private readonly list = createPagedList<ScanSummary, ScanSortKey>({
-    initialQuery: { page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'periodStart', direction: 'asc' },
+    initialQuery: { page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'chartStart', direction: 'asc' },
     sortKeys: SCAN_SORT_KEYS,
     load: (query) => this.scansApi.list(query, { status: 'ready_to_trace' }),
     failureMessage: 'The Desk could not be loaded.',

@@ -43,7 +43,7 @@ export class UploadPanel {
   protected readonly form = inject(NonNullableFormBuilder).group({
     stationId: ['', Validators.required],
     chartFormId: ['', Validators.required],
-    periodStart: ['', [Validators.required, utcInstantValidator]],
+    chartStart: ['', [Validators.required, utcInstantValidator]],
   });
   protected readonly file = signal<File | null>(null);
   protected readonly progressPercent = signal<number | null>(null);
@@ -59,8 +59,8 @@ export class UploadPanel {
 
   protected uploadScan(): void {
     const file = this.file();
-    const periodStart = parseUtcInstant(this.form.controls.periodStart.value);
-    if (this.form.invalid || file === null || periodStart === null) {
+    const chartStart = parseUtcInstant(this.form.controls.chartStart.value);
+    if (this.form.invalid || file === null || chartStart === null) {
       this.form.markAllAsTouched();
       this.isFileMissing.set(file === null);
       return;
@@ -69,7 +69,7 @@ export class UploadPanel {
     this.progressPercent.set(0);
     const { stationId, chartFormId } = this.form.getRawValue();
     this.scansApi
-      .upload(file, { stationId, chartFormId, periodStart })
+      .upload(file, { stationId, chartFormId, chartStart })
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
         next: (event) => {
