@@ -19,6 +19,7 @@ import * as addScanSortIndexes from './2026_12_02_0470_add_scan_sort_indexes';
 import * as addScanSpanBtree from './2026_12_02_0480_add_scan_span_btree';
 import * as indexScanSpanLength from './2026_12_02_0490_index_scan_span_length';
 import * as renameScanChartStart from './2026_12_03_0600_rename_scan_chart_start';
+import * as createSeriesChange from './2026_12_03_0610_create_series_change';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -46,4 +47,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_02_0480_add_scan_span_btree': addScanSpanBtree,
   '2026_12_02_0490_index_scan_span_length': indexScanSpanLength,
   '2026_12_03_0600_rename_scan_chart_start': renameScanChartStart,
+  '2026_12_03_0610_create_series_change': createSeriesChange,
 };

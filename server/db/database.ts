@@ -8,6 +8,7 @@ import type { InstrumentTable } from '../instruments/instrument.table';
 import type { IntakeBatchTable, IntakeFileTable } from '../intake/intake.table';
 import type { PersonRoleTable, PersonTable } from '../people/person.table';
 import type { ScanTable } from '../scans/scan.table';
+import type { SeriesChangeTable } from '../series/series-change.table';
 import type { SeriesPointTable } from '../series/series-point.table';
 import type { StationTable } from '../stations/station.table';
 
@@ -26,6 +27,7 @@ export interface Database {
   intake_batch: IntakeBatchTable;
   intake_file: IntakeFileTable;
   scan_audit: ScanAuditTable;
+  series_change: SeriesChangeTable;
 }
 
 export type Db = Kysely<Database>;
