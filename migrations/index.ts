@@ -18,6 +18,8 @@ import * as createScanAudit from './2026_12_02_0460_create_scan_audit';
 import * as addScanSortIndexes from './2026_12_02_0470_add_scan_sort_indexes';
 import * as addScanSpanBtree from './2026_12_02_0480_add_scan_span_btree';
 import * as indexScanSpanLength from './2026_12_02_0490_index_scan_span_length';
+import * as createLesson from './2026_12_03_1200_create_lesson';
+import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -44,4 +46,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_02_0470_add_scan_sort_indexes': addScanSortIndexes,
   '2026_12_02_0480_add_scan_span_btree': addScanSpanBtree,
   '2026_12_02_0490_index_scan_span_length': indexScanSpanLength,
+  '2026_12_03_1200_create_lesson': createLesson,
+  '2026_12_03_1210_create_lesson_share': createLessonShare,
 };
