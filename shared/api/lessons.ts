@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Parsed } from './field-reader';
+import { normalizeInstant, type Parsed } from './field-reader';
 import type { SeriesPoint } from './series';
 
 /** Kinds of a front note: the fronts and pressure features of the trade, or none. */
@@ -25,7 +25,10 @@ export const MAX_LESSON_QUESTIONS = 50;
 const MAX_TITLE = 200;
 const MAX_TEXT = 4000;
 
-const instant = z.iso.datetime({ offset: true, message: 'must be an ISO 8601 instant with Z or an offset' }).transform((value) => new Date(value).toISOString());
+const instant = z
+  .string()
+  .refine((value) => normalizeInstant(value) !== null, 'must be an ISO 8601 instant with Z or an offset, e.g. 2026-03-03T15:00Z')
+  .transform((value) => normalizeInstant(value) as string);
 const id = z.uuid({ message: 'must be an id' });
 
 /** A mark on a scan's IIIF canvas, in the canvas's (the full image's) pixels: a point, or a box when width and height are given. */
