@@ -98,20 +98,6 @@ export function chartRegionsOf(
   return regions.slice(0, MAX_CHART_REGIONS).map((region, index) => ({ ...region, index, imagePath: imagePath(index) }));
 }
 
-/** The region a mark on a scan falls in (or the first of that scan), or undefined when the scan is not in the passage. */
-export function regionOfMark(regions: readonly ChartRegion[], mark: { scanId: string; xPx: number; yPx: number }): ChartRegion | undefined {
-  const ofScan = regions.filter((region) => region.scanId === mark.scanId);
-  return (
-    ofScan.find(
-      (region) =>
-        mark.xPx >= region.region.xPx &&
-        mark.xPx <= region.region.xPx + region.region.widthPx &&
-        mark.yPx >= region.region.yPx &&
-        mark.yPx <= region.region.yPx + region.region.heightPx,
-    ) ?? ofScan[0]
-  );
-}
-
 /** The IIIF size parameter of a region's image: its own width, or at most maxWidthPx wide. */
 export function regionImageSize(region: ChartRegion['region'], maxWidthPx = 1600): string {
   return `${Math.min(region.widthPx, maxWidthPx)},`;

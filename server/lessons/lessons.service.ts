@@ -3,6 +3,8 @@ import {
   type ChartRegion,
   type FrontNote,
   LESSON_CAUTION,
+  lessonSourceLine,
+  regionOfMark,
   type LessonCreate,
   type LessonDetail,
   type LessonPassage,
@@ -24,7 +26,7 @@ import { versionConflict } from '../http/version-conflict';
 import * as seriesService from '../series/series.service';
 import * as stationsService from '../stations/stations.service';
 import type { StoredFrontNote, StoredQuestion } from './lesson.table';
-import { chartRegionsOf, derivedValuesOf, frontCandidatesOf, regionOfMark, toPressureSamples } from './lesson-passage';
+import { chartRegionsOf, derivedValuesOf, frontCandidatesOf, toPressureSamples } from './lesson-passage';
 import * as lessonsRepository from './lessons.repository';
 import type { LessonRecord } from './lessons.repository';
 
@@ -318,7 +320,7 @@ export async function openSharedLesson(db: Db, token: string): Promise<SharedLes
     questions: lesson.questions,
     passage: { ...passage, regions: passage.regions.map(({ scanId: _scanId, ...region }) => region) },
     caution: LESSON_CAUTION,
-    source: `Station series of ${lesson.stationName} (${lesson.stationCode}), digitized in Isallo from the station's barograms; lesson by ${lesson.ownerName}.`,
+    source: lessonSourceLine(lesson.stationName, lesson.stationCode, lesson.ownerName),
   };
 }
 

@@ -275,6 +275,25 @@ export interface SharedLesson {
   source: string;
 }
 
+/** The region a mark on a scan falls in (or the first of that scan), or undefined when the scan is not in the passage. */
+export function regionOfMark(regions: readonly ChartRegion[], mark: { scanId: string; xPx: number; yPx: number }): ChartRegion | undefined {
+  const ofScan = regions.filter((region) => region.scanId === mark.scanId);
+  return (
+    ofScan.find(
+      (region) =>
+        mark.xPx >= region.region.xPx &&
+        mark.xPx <= region.region.xPx + region.region.widthPx &&
+        mark.yPx >= region.region.yPx &&
+        mark.yPx <= region.region.yPx + region.region.heightPx,
+    ) ?? ofScan[0]
+  );
+}
+
+/** The source line of a shared page and handout. */
+export function lessonSourceLine(stationName: string, stationCode: string, teacherName: string): string {
+  return `Station series of ${stationName} (${stationCode}), digitized in Isallo from the station's barograms; lesson by ${teacherName}.`;
+}
+
 /** Shown on every shared page and handout (the README's caution, short). */
 export const LESSON_CAUTION =
   'Digitized historical pressures serve research and teaching; they are not for aviation altimeter settings or navigation.';
