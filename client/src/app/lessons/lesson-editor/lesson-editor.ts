@@ -8,7 +8,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
-import type { ChartRegion, FrontCandidateView, FrontNoteInput, LessonDetail, LessonPassage, QuestionInput } from '@shared/api/lessons';
+import type { CandidateDecision, ChartRegion, FrontCandidateView, FrontNoteInput, LessonDetail, LessonPassage, QuestionInput } from '@shared/api/lessons';
 import { switchMap, tap } from 'rxjs';
 
 import { ApiError } from '../../core/http/api-error';
@@ -51,7 +51,7 @@ export class LessonEditor {
 
   protected readonly lesson = signal<LessonDetail | null>(null);
   protected readonly passage = signal<LessonPassage | null>(null);
-  protected readonly imageUrls = signal<Record<number, string>>({});
+  protected readonly imageUrls = signal<Partial<Record<number, string>>>({});
   protected readonly failure = signal<string | null>(null);
   protected readonly isSaving = signal(false);
   protected readonly draft = signal<NoteDraft | null>(null);
@@ -76,7 +76,7 @@ export class LessonEditor {
     const decisions = this.lesson()?.candidateDecisions ?? {};
     return (this.passage()?.candidates ?? []).map((candidate) => ({
       candidate,
-      decision: decisions[candidate.key] ?? null,
+      decision: (decisions[candidate.key] as CandidateDecision | undefined) ?? null,
       label: candidate.kind === 'front' ? 'Front candidate: lowest point, then a sustained rise' : 'Pressure jump candidate: a sudden rise',
       when: formatUtc(candidate.time),
       detail:

@@ -6,6 +6,8 @@ import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type Plot
 import { kindLabel } from '../lesson-text';
 
 const BOX: PlotBox = { width: 960, height: 340, marginLeft: 56, marginRight: 16, marginTop: 14, marginBottom: 36 };
+/** On a phone the same text size needs a narrower drawing: fewer user units across, so labels stay readable. */
+const NARROW_BOX: PlotBox = { width: 440, height: 300, marginLeft: 44, marginRight: 10, marginTop: 14, marginBottom: 32 };
 const GAP_FACTOR = 3;
 
 /** A note as the plot draws it. */
@@ -35,25 +37,29 @@ export class LessonPlot {
   /** The text alternative: what the plot shows and the notes in time order. */
   readonly altText = input.required<string>();
 
-  protected readonly box = BOX;
-  private readonly scales = computed(() => createPlotScales(this.points(), BOX, this.timeDomainMs()));
+  /** Draw for a narrow screen (fewer ticks, larger type relative to the width). */
+  readonly isNarrow = input(false);
+
+  protected readonly box = computed(() => (this.isNarrow() ? NARROW_BOX : BOX));
+  private readonly scales = computed(() => createPlotScales(this.points(), this.box(), this.timeDomainMs()));
   protected readonly linePath = computed(() => {
     const step = medianStepMs(this.points()) * GAP_FACTOR;
     return buildLinePath(this.points(), this.scales(), step > 0 ? step : Number.POSITIVE_INFINITY);
   });
   protected readonly xTicks = computed(() => {
     const { x } = this.scales();
-    const ticks = x.ticks(6);
+    const box = this.box();
+    const ticks = x.ticks(this.isNarrow() ? 3 : 6);
     const stepMs = ticks.length > 1 ? ticks[1].getTime() - ticks[0].getTime() : 0;
     return ticks.map((tick) => {
       const at = x(tick);
-      const anchor = at > BOX.width - BOX.marginRight - 40 ? 'end' : at < BOX.marginLeft + 40 ? 'start' : 'middle';
+      const anchor = at > box.width - box.marginRight - 40 ? 'end' : at < box.marginLeft + 40 ? 'start' : 'middle';
       return { at, label: formatUtcTick(tick, stepMs), anchor };
     });
   });
   protected readonly yTicks = computed(() => {
     const { y } = this.scales();
-    return y.ticks(6).map((tick) => ({ at: y(tick), label: String(tick) }));
+    return y.ticks(this.isNarrow() ? 4 : 6).map((tick) => ({ at: y(tick), label: String(tick) }));
   });
   protected readonly noteMarks = computed(() => {
     const { x } = this.scales();
@@ -77,7 +83,7 @@ export class LessonPlot {
         const timeMs = Date.parse(candidate.time);
         const at = points.find((point) => Date.parse(point.time) === timeMs);
         const cx = x(new Date(timeMs));
-        const cy = at ? y(at.pressureHpa) + 10 : BOX.height - BOX.marginBottom - 8;
+        const cy = at ? y(at.pressureHpa) + 10 : this.box().height - this.box().marginBottom - 8;
         return {
           key: candidate.key,
           path: `M${cx},${cy} l-6,10 h12 z`,

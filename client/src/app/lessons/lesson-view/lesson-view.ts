@@ -1,7 +1,10 @@
-import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
+import { BreakpointObserver } from '@angular/cdk/layout';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import type { ChartRegion, FrontNoteKind, NoteDerivedValues, Question } from '@shared/api/lessons';
 import type { SeriesPoint } from '@shared/api/series';
+import { map } from 'rxjs';
 
 import { ChartRegionFigure, type RegionMark } from '../chart-region-figure/chart-region-figure';
 import { LessonPlot } from '../lesson-plot/lesson-plot';
@@ -49,9 +52,10 @@ export interface LessonViewModel {
 export class LessonView {
   readonly lesson = input.required<LessonViewModel>();
   /** Image address of each region, by index (an object URL for the teacher, the link-scoped path on a share page). */
-  readonly imageUrls = input<Readonly<Record<number, string>>>({});
+  readonly imageUrls = input<Readonly<Partial<Record<number, string>>>>({});
 
   private readonly revealed = signal<ReadonlySet<string>>(new Set());
+  protected readonly isNarrow = toSignal(inject(BreakpointObserver).observe('(max-width: 600px)').pipe(map((state) => state.matches)), { initialValue: false });
 
   protected readonly period = computed(() => `${formatUtc(this.lesson().from)} to ${formatUtc(this.lesson().to)}`);
   protected readonly timeDomainMs = computed((): [number, number] => [Date.parse(this.lesson().from), Date.parse(this.lesson().to)]);
