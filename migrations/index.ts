@@ -20,6 +20,8 @@ import * as addScanSpanBtree from './2026_12_02_0480_add_scan_span_btree';
 import * as indexScanSpanLength from './2026_12_02_0490_index_scan_span_length';
 import * as renameScanChartStart from './2026_12_03_0600_rename_scan_chart_start';
 import * as createSeriesChange from './2026_12_03_0610_create_series_change';
+import * as createLesson from './2026_12_03_1200_create_lesson';
+import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -48,4 +50,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_02_0490_index_scan_span_length': indexScanSpanLength,
   '2026_12_03_0600_rename_scan_chart_start': renameScanChartStart,
   '2026_12_03_0610_create_series_change': createSeriesChange,
+  '2026_12_03_1200_create_lesson': createLesson,
+  '2026_12_03_1210_create_lesson_share': createLessonShare,
 };

@@ -14,6 +14,7 @@ import { iiifRoutes } from './iiif/iiif.routes';
 import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
+import { lessonsRoutes, noIndex, sharedLessonRoutes } from './lessons/lessons.routes';
 import { peopleRoutes } from './people/people.routes';
 import { scansRoutes } from './scans/scans.routes';
 import { seriesRoutes } from './series/series.routes';
@@ -45,11 +46,15 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/scans', followInkRoutes(deps, authenticate));
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
+  app.use('/api/lessons', authenticate, lessonsRoutes(deps));
+  app.use('/api/shared', sharedLessonRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));
   app.use('/api', apiNotFound);
   app.use('/iiif', iiifRoutes(deps, authenticate));
   app.use('/iiif', apiNotFound);
 
+  // The share page itself (the client's /shared/<token>) is kept out of search engines as its API answers are.
+  app.use('/shared', noIndex);
   app.use(clientStatic(deps.config.clientDir, deps.logger));
   app.use(errorHandler(deps.logger, deps.config.maxUploadBytes));
   return app;

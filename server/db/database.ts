@@ -6,6 +6,7 @@ import type { InkLineTable } from '../ink-lines/ink-line.table';
 import type { PinSetTable } from '../ink-lines/pin-set.table';
 import type { InstrumentTable } from '../instruments/instrument.table';
 import type { IntakeBatchTable, IntakeFileTable } from '../intake/intake.table';
+import type { LessonShareTable, LessonTable } from '../lessons/lesson.table';
 import type { PersonRoleTable, PersonTable } from '../people/person.table';
 import type { ScanTable } from '../scans/scan.table';
 import type { SeriesChangeTable } from '../series/series-change.table';
@@ -28,6 +29,8 @@ export interface Database {
   intake_file: IntakeFileTable;
   scan_audit: ScanAuditTable;
   series_change: SeriesChangeTable;
+  lesson: LessonTable;
+  lesson_share: LessonShareTable;
 }
 
 export type Db = Kysely<Database>;

@@ -20,6 +20,10 @@ export type ApiErrorCode =
   /** A PDF that is encrypted or has no pages. */
   | 'unreadable_pdf'
   | 'registration_failed'
+  | 'lesson_not_found'
+  /** A share link that does not exist, has expired or was revoked (the three are not told apart). */
+  | 'share_link_not_found'
+  | 'rate_limited'
   | 'version_conflict'
   | 'conflict'
   | 'internal_error';

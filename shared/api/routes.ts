@@ -26,6 +26,15 @@ export const API = {
   series: '/api/series',
   seriesCsv: '/api/series.csv',
   people: '/api/people',
+  lessons: '/api/lessons',
+  lesson: (lessonId: string) => `/api/lessons/${enc(lessonId)}`,
+  lessonCopy: (lessonId: string) => `/api/lessons/${enc(lessonId)}/copy`,
+  lessonPassage: (lessonId: string) => `/api/lessons/${enc(lessonId)}/passage`,
+  lessonAnnotations: (lessonId: string) => `/api/lessons/${enc(lessonId)}/annotations`,
+  lessonShares: (lessonId: string) => `/api/lessons/${enc(lessonId)}/shares`,
+  lessonShare: (lessonId: string, shareId: string) => `/api/lessons/${enc(lessonId)}/shares/${enc(shareId)}`,
+  /** What a share link shows, with no sign-in; its chart regions are under it (see LessonPassage.regions). */
+  sharedLesson: (token: string) => `/api/shared/${enc(token)}`,
   health: '/api/health',
 } as const;
 

@@ -9,6 +9,7 @@ import * as scansService from '../../server/scans/scans.service';
 import { createChartForm, createPerson, createScanRow, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { makePng } from '../helpers/images';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
+import { createTracedFrontScan } from '../helpers/lesson-fixtures';
 import { syntheticDraft } from '../helpers/trace';
 
 const PERIOD_START = '2026-03-02T00:00:00.000Z';
@@ -34,17 +35,20 @@ describe('who may call each route', () => {
   let statusScanId: string;
   let failedScanId: string;
   let formNumber = 0;
+  let lessonId: string;
+  let lessonShareId: string;
+  let lessonToken: string;
 
   function withToken(call: request.Test, token: string | null): request.Test {
     return token === null ? call : call.set('Authorization', `Bearer ${token}`);
   }
 
-  async function versionOf(table: 'station' | 'instrument' | 'chart_form' | 'scan', id: string): Promise<number> {
+  async function versionOf(table: 'station' | 'instrument' | 'chart_form' | 'scan' | 'lesson', id: string): Promise<number> {
     const row = await context.db.selectFrom(table).select('version').where('id', '=', id).executeTakeFirstOrThrow();
     return row.version;
   }
 
-  async function count(table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch'): Promise<number> {
+  async function count(table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch' | 'lesson' | 'lesson_share'): Promise<number> {
     const { total } = await context.db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow();
     return total;
   }
@@ -234,6 +238,68 @@ describe('who may call each route', () => {
       call: (token) => withToken(request(context.app).get(API.seriesCsv).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
     },
     { name: 'GET /api/people', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.people), token) },
+    { name: 'GET /api/lessons', roles: ['teacher', 'admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.lessons), token) },
+    {
+      name: 'POST /api/lessons',
+      roles: ['teacher', 'admin'],
+      successStatus: 201,
+      call: (token) =>
+        withToken(request(context.app).post(API.lessons), token).send({ title: 'Role lesson', audience: '', description: '', stationId, from: '2026-03-02T00:00Z', to: '2026-03-04T00:00Z' }),
+      sideEffectCount: () => count('lesson'),
+    },
+    { name: 'GET /api/lessons/:lessonId', roles: ['teacher', 'admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.lesson(lessonId)), token) },
+    {
+      name: 'PATCH /api/lessons/:lessonId',
+      roles: ['teacher', 'admin'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).patch(API.lesson(lessonId)), token).send({ version: await versionOf('lesson', lessonId), audience: 'edited' }),
+    },
+    {
+      name: 'DELETE /api/lessons/:lessonId',
+      roles: ['teacher', 'admin'],
+      successStatus: 204,
+      call: async (token) => {
+        const doomed = await request(context.app)
+          .post(API.lessons)
+          .set('Authorization', `Bearer ${people.teacher.token}`)
+          .send({ title: 'To delete', audience: '', description: '', stationId, from: '2026-03-02T00:00Z', to: '2026-03-03T00:00Z' });
+        return withToken(request(context.app).delete(API.lesson(doomed.body.id)).query({ version: 1 }), token);
+      },
+    },
+    {
+      name: 'POST /api/lessons/:lessonId/copy',
+      roles: ['teacher', 'admin'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.lessonCopy(lessonId)), token),
+      sideEffectCount: () => count('lesson'),
+    },
+    { name: 'GET /api/lessons/:lessonId/passage', roles: ['teacher', 'admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.lessonPassage(lessonId)), token) },
+    {
+      name: 'GET /api/lessons/:lessonId/regions/:index/image.jpg',
+      roles: ['teacher', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(`${API.lesson(lessonId)}/regions/0/image.jpg`), token),
+    },
+    {
+      name: 'GET /api/lessons/:lessonId/annotations',
+      roles: ['teacher', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.lessonAnnotations(lessonId)), token),
+    },
+    { name: 'GET /api/lessons/:lessonId/shares', roles: ['teacher', 'admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.lessonShares(lessonId)), token) },
+    {
+      name: 'POST /api/lessons/:lessonId/shares',
+      roles: ['teacher', 'admin'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.lessonShares(lessonId)), token).send({ expiresAt: null }),
+      sideEffectCount: () => count('lesson_share'),
+    },
+    {
+      name: 'PATCH /api/lessons/:lessonId/shares/:shareId',
+      roles: ['teacher', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).patch(API.lessonShare(lessonId, lessonShareId)), token).send({ expiresAt: '2099-01-01T00:00Z' }),
+    },
   ];
 
   const allowedCases = routes.flatMap((route) => route.roles.map((role) => [route.name, role] as const));
@@ -261,6 +327,24 @@ describe('who may call each route', () => {
     );
     scanId = scan.id;
     await context.db.updateTable('scan').set({ collection: 'ROLE', box: '1' }).where('id', '=', scanId).execute();
+    // A lesson of the teacher over a traced front, so the passage has a chart region; and a live share link.
+    const lessonStationId = (await createStation(context.db)).id;
+    await createTracedFrontScan(context, {
+      stationId: lessonStationId,
+      chartFormId,
+      form: TEST_WEEKLY_FORM,
+      chartStart: PERIOD_START,
+      archivistId: people.archivist.id,
+      volunteerId: people.volunteer.id,
+    });
+    const lesson = await request(context.app)
+      .post(API.lessons)
+      .set('Authorization', `Bearer ${people.teacher.token}`)
+      .send({ title: 'Roles', audience: '', description: '', stationId: lessonStationId, from: '2026-03-02T12:00Z', to: '2026-03-04T12:00Z' });
+    lessonId = lesson.body.id;
+    const link = await request(context.app).post(API.lessonShares(lessonId)).set('Authorization', `Bearer ${people.teacher.token}`).send({ expiresAt: null });
+    lessonShareId = link.body.id;
+    lessonToken = link.body.token;
   });
 
   afterAll(async () => {
@@ -322,5 +406,13 @@ describe('who may call each route', () => {
     expect(health.status).toBe(200);
     expect(signIn.status).toBe(200);
     expect(signIn.body.person.roles).toEqual(['teacher']);
+  });
+
+  it('when a share link and its chart region are opened without a token, then they answer', async () => {
+    const shared = await request(context.app).get(API.sharedLesson(lessonToken));
+    const image = await request(context.app).get(shared.body.passage.regions[0].imagePath);
+
+    expect(shared.status).toBe(200);
+    expect(image.status).toBe(200);
   });
 });

@@ -8,6 +8,8 @@ import { AppShell } from './core/layout/app-shell';
 
 export const routes: Routes = [
   { path: 'sign-in', loadChildren: () => import('./sign-in/sign-in.routes').then((m) => m.signInRoutes) },
+  // A share link's page is for a class without accounts: outside the shell and its sign-in guard.
+  { path: 'shared', loadChildren: () => import('./lessons/shared-lesson.routes').then((m) => m.sharedLessonRoutes) },
   {
     path: '',
     component: AppShell,
@@ -29,6 +31,11 @@ export const routes: Routes = [
         path: 'bench',
         canMatch: [roleGuard(BENCH_ROLES)],
         loadChildren: () => import('./bench/bench.routes').then((m) => m.benchRoutes),
+      },
+      {
+        path: 'lessons',
+        canMatch: [roleGuard(rolesFor('lessons'))],
+        loadChildren: () => import('./lessons/lessons.routes').then((m) => m.lessonsRoutes),
       },
       {
         path: 'series',

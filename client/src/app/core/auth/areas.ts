@@ -13,6 +13,7 @@ export interface Area {
 export const AREAS: readonly Area[] = [
   { path: 'archive', label: 'Archive', icon: 'inventory_2', roles: ['archivist'], testId: 'nav-archive' },
   { path: 'desk', label: 'Desk', icon: 'edit_note', roles: ['volunteer'], testId: 'nav-desk' },
+  { path: 'lessons', label: 'Lessons', icon: 'school', roles: ['teacher'], testId: 'nav-lessons' },
   { path: 'series', label: 'Series', icon: 'show_chart', roles: ['climatologist', 'teacher'], testId: 'nav-series' },
   { path: 'people', label: 'People', icon: 'group', roles: ['admin'], testId: 'nav-people' },
 ];

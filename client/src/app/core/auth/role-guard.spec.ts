@@ -48,7 +48,7 @@ describe('homeRedirect', () => {
   it.each([
     [['archivist'], '/archive'],
     [['volunteer'], '/desk'],
-    [['teacher'], '/series'],
+    [['teacher'], '/lessons'], // Lessons is the teacher's home (issue 12),
     [['admin'], '/people'],
     [['admin', 'volunteer'], '/desk'],
   ] as const)('when the person holds %j, then home is %s', (roles, expectedUrl) => {
