@@ -82,6 +82,15 @@ describe('a lesson from the demo front to a shared, printed handout', () => {
     await teacher.getByTestId('note-save').click();
     await teacher.getByTestId('note-form').waitFor({ state: 'detached' });
 
+    // Act 2b: dismiss the pressure jump candidate, take the dismissal back, then dismiss it for good.
+    const jumpRow = teacher.getByTestId('candidate-row').filter({ hasText: 'Pressure jump candidate' });
+    await jumpRow.getByTestId('candidate-dismiss').click();
+    await jumpRow.getByTestId('candidate-reopen').click();
+    await jumpRow.getByTestId('candidate-accept').waitFor();
+    expect(await jumpRow.getAttribute('data-decision')).toBe('open');
+    await jumpRow.getByTestId('candidate-dismiss').click();
+    await jumpRow.getByTestId('candidate-reopen').waitFor();
+
     // Act 3: a question with its answer, then a share link.
     await teacher.getByTestId('question-text').fill(QUESTION);
     await teacher.getByTestId('question-answer').fill(ANSWER);
@@ -92,6 +101,7 @@ describe('a lesson from the demo front to a shared, printed handout', () => {
 
     // Assert the teacher's side: the note came from the candidate, with its derived values and its mark.
     expect(await frontRow.getAttribute('data-decision')).toBe('accepted');
+    expect(await jumpRow.getAttribute('data-decision')).toBe('dismissed');
     const noteRow = teacher.getByTestId('note-row').first();
     expect(await noteRow.textContent()).toContain(NOTE_TEXT);
     expect(await noteRow.getByTestId('note-derived').textContent()).toMatch(/3-hour tendency .+ characteristic \d \(group 5\d{4}\)/);

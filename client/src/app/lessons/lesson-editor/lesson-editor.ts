@@ -126,6 +126,14 @@ export class LessonEditor {
     if (lesson) this.save({ candidateDecisions: { ...lesson.candidateDecisions, [candidate.key]: 'dismissed' } });
   }
 
+  /** Takes back a dismissal: the candidate is offered again. (An accepted one is undone by deleting its note.) */
+  protected reopenCandidate(candidate: FrontCandidateView): void {
+    const lesson = this.lesson();
+    if (!lesson) return;
+    const { [candidate.key]: _dismissed, ...others } = lesson.candidateDecisions;
+    this.save({ candidateDecisions: others });
+  }
+
   protected startNote(): void {
     const lesson = this.lesson();
     if (!lesson) return;
@@ -146,7 +154,12 @@ export class LessonEditor {
 
   protected deleteNote(noteId: string): void {
     const lesson = this.lesson();
-    if (lesson) this.save({ notes: lesson.notes.filter((note) => note.id !== noteId).map(inputOf) });
+    if (!lesson) return;
+    // A note made from a candidate takes its acceptance with it, so the candidate is offered again.
+    const key = lesson.notes.find((note) => note.id === noteId)?.candidateKey;
+    const decisions = { ...lesson.candidateDecisions };
+    if (key) delete decisions[key];
+    this.save({ notes: lesson.notes.filter((note) => note.id !== noteId).map(inputOf), candidateDecisions: decisions });
   }
 
   protected updateDraft(draft: NoteDraft): void {
