@@ -4,6 +4,9 @@ const sharedAlias = { '^@shared/(.*)$': '<rootDir>/shared/$1' };
 
 /** @type {import('jest').Config} */
 module.exports = {
+  // API and browser tests hash passwords with argon2id and talk to PostgreSQL: on a busy 2-core machine the
+  // 5 s default failed tests that were only slow. Speed is measured by the benchmarks, never by a timeout.
+  testTimeout: 30_000,
   projects: [
     {
       displayName: 'unit',

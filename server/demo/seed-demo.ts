@@ -17,6 +17,7 @@ import * as scansService from '../scans/scans.service';
 import * as stationsRepository from '../stations/stations.repository';
 import type { ScanDeps } from '../scans/scan-deps';
 import type { Storage } from '../storage/storage';
+import { seedDemoLesson } from './demo-lesson';
 import { readDemoSample, type DemoSample } from './demo-sample';
 import { DEMO_DAILY_FORM, DEMO_PASSWORD, DEMO_PEOPLE, DEMO_STATIONS, DEMO_WEEKLY_FORM_FALLBACK } from './demo-scenario';
 
@@ -138,6 +139,7 @@ export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promis
         await inkLinesService.handInInkLine(db, traced.id, { pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, volunteerId);
       }
       result.tracedScanId = traced.id;
+      await seedDemoLesson(db, personIds.get('teacher@isallo.test') as string, kestrelRidge.id, chartStartMs);
     }
   }
 

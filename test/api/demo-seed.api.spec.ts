@@ -2,6 +2,7 @@ import path from 'node:path';
 import request from 'supertest';
 import { API } from '@shared/api/routes';
 import { seedDemo } from '../../server/demo/seed-demo';
+import { DEMO_LESSON_TITLE } from '../../server/demo/demo-lesson';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../../server/demo/demo-scenario';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 
@@ -72,6 +73,16 @@ describe('demo scenario seed', () => {
       .executeTakeFirstOrThrow();
     // The sample is a weekly chart: well over a hundred hourly points.
     expect(count).toBeGreaterThan(100);
+
+    // The demo teacher has a finished lesson on the traced chart's front, shared by a link.
+    const lessons = await context.db.selectFrom('lesson').select(['id', 'title', 'notes', 'questions', 'candidate_decisions']).execute();
+    expect(lessons.map((lesson) => lesson.title)).toEqual([DEMO_LESSON_TITLE]);
+    const [lesson] = lessons;
+    expect(lesson.notes).toHaveLength(1);
+    expect(lesson.notes[0]).toMatchObject({ kind: 'cold_front', showDerived: true });
+    expect(lesson.candidate_decisions).toEqual({ [lesson.notes[0].candidateKey as string]: 'accepted' });
+    expect(lesson.questions).toHaveLength(1);
+    expect(await context.db.selectFrom('lesson_share').select('id').where('lesson_id', '=', lesson.id).execute()).toHaveLength(1);
   });
 
   it('when an earlier seed stopped after its uploads, then running it again finishes without a second copy', async () => {
@@ -84,5 +95,6 @@ describe('demo scenario seed', () => {
     expect(again).toEqual({ ...first, isSeeded: true });
     expect(await context.db.selectFrom('scan').select('id').execute()).toHaveLength(2);
     expect(await context.db.selectFrom('ink_line').select('id').execute()).toHaveLength(1);
+    expect(await context.db.selectFrom('lesson').select('id').execute()).toHaveLength(1);
   });
 });
