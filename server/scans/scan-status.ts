@@ -33,9 +33,9 @@ const MISSING_LABELS: Record<string, string> = {
 
 /** Throws 409 unless the move is allowed and, for ready to trace, the scan has everything tracing needs. */
 export function checkStatusMove(scan: ScanDetail, to: ScanStatus): void {
-  if (scan.status === to) throw new AppError(HTTP.conflict, 'conflict', `The scan is already ${SCAN_STATUS_LABELS[to]}.`);
+  if (scan.status === to) throw new AppError(HTTP.conflict, 'status_unchanged', `The scan is already ${SCAN_STATUS_LABELS[to]}.`);
   if (!ALLOWED_STATUS_MOVES[scan.status].includes(to)) {
-    throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${SCAN_STATUS_LABELS[scan.status]} cannot become ${SCAN_STATUS_LABELS[to]}.`, {
+    throw new AppError(HTTP.conflict, 'status_move_not_allowed', `A scan that is ${SCAN_STATUS_LABELS[scan.status]} cannot become ${SCAN_STATUS_LABELS[to]}.`, {
       allowed: ALLOWED_STATUS_MOVES[scan.status],
     });
   }
@@ -44,7 +44,7 @@ export function checkStatusMove(scan: ScanDetail, to: ScanStatus): void {
     if (missing.length > 0) {
       throw new AppError(
         HTTP.conflict,
-        'conflict',
+        'scan_incomplete',
         `The scan cannot be ready to trace without ${missing.map((field) => MISSING_LABELS[field]).join(', ')}.`,
         { missing },
       );

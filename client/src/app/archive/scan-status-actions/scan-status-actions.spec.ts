@@ -75,7 +75,7 @@ describe('ScanStatusActions', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Ready to trace/ }))).click();
     controller
       .expectOne('/api/scans/scan-1/status')
-      .flush({ error: { code: 'conflict', message: 'The scan is not ready to trace.', details: { stationId: 'station is not set' } } }, { status: 409, statusText: 'Conflict' });
+      .flush({ error: { code: 'scan_incomplete', message: 'The scan is not ready to trace.', details: { stationId: 'station is not set' } } }, { status: 409, statusText: 'Conflict' });
     await settle();
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="status-problem"]')?.textContent ?? '';
