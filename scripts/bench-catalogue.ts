@@ -200,7 +200,7 @@ async function main(): Promise<void> {
     process.exitCode = worst < BAR_MS ? 0 : 1;
   } finally {
     await db?.destroy();
-    await postgres.stop();
+    await postgres.remove();
     rmSync(workDir, { recursive: true, force: true });
   }
 }

@@ -64,7 +64,8 @@ async function main(): Promise<number> {
   const suites = pickSuites(split === -1 ? argv : argv.slice(0, split));
   const patterns = split === -1 ? [] : argv.slice(split + 1);
   const workDir = mkdtempSync(join(tmpdir(), 'isallo-test-'));
-  // PostgreSQL runs as its own account when we are root, so it must be able to enter the folder.
+  // PostgreSQL runs as its own account when we are root: let it enter the folder when the folders above allow
+  // (LocalPostgres keeps the cluster in the account's home when they do not).
   chmodSync(workDir, 0o755);
   const needsDb = suites.includes('api') || suites.includes('e2e');
   const postgres = needsDb ? new LocalPostgres(join(workDir, 'pg'), await findFreePort()) : null;
@@ -73,7 +74,8 @@ async function main(): Promise<number> {
   let cleanup: Promise<void> | undefined;
   const stopAll = () =>
     (cleanup ??= (async () => {
-      await postgres?.stop();
+      // The cluster may live outside workDir (see LocalPostgres), so it is removed on its own.
+      await postgres?.remove();
       rmSync(workDir, { recursive: true, force: true });
     })());
   process.on('SIGINT', () => void stopAll().then(() => process.exit(130)));

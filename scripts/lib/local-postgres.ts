@@ -1,6 +1,7 @@
-import { chownSync, existsSync, mkdirSync, readdirSync, statSync } from 'node:fs';
-import { join } from 'node:path';
+import { chmodSync, chownSync, existsSync, mkdirSync, readdirSync, rmSync, statSync } from 'node:fs';
+import { dirname, join } from 'node:path';
 import { Client } from 'pg';
+import { chooseClusterFolder, POSTGRES_CLUSTERS_ROOT } from './cluster-folder';
 import { ensurePostgresBin, isRoot } from './postgres-binaries';
 import { runChecked, runCommand } from './run-command';
 
@@ -8,16 +9,25 @@ const SUPERUSER = 'isallo';
 
 /**
  * A PostgreSQL cluster in a folder of ours, listening on 127.0.0.1 only.
- * As root the server runs as Debian's `postgres` account (PostgreSQL refuses to run as root).
+ * As root the server runs as Debian's `postgres` account (PostgreSQL refuses to run as root); when that
+ * account cannot enter the wanted folder (a clone in a mode-700 home or a `mktemp -d` folder), the cluster
+ * is kept in a folder of the account's own home instead, one per wanted path, and a line says where.
  */
 export class LocalPostgres {
   private binDir = '';
   private startedHere = false;
+  private chosenDir: string | null = null;
 
   constructor(
-    readonly dataDir: string,
+    readonly wantedDir: string,
     readonly port: number,
+    private readonly clustersRoot = POSTGRES_CLUSTERS_ROOT,
   ) {}
+
+  /** The folder the cluster lives in (known once start() has run). */
+  get dataDir(): string {
+    return this.chosenDir ?? this.wantedDir;
+  }
 
   /** The URL of a database in this cluster. */
   url(database: string): string {
@@ -27,6 +37,7 @@ export class LocalPostgres {
   /** Creates the cluster on first use and starts it; a cluster that is already running is reused. */
   async start(): Promise<void> {
     this.binDir = await ensurePostgresBin();
+    this.chosenDir = await this.chooseFolder();
     if (!existsSync(join(this.dataDir, 'PG_VERSION'))) await this.initCluster();
     if (await this.isRunning()) {
       console.log(`PostgreSQL is already running in ${this.dataDir}; reusing it.`);
@@ -45,6 +56,12 @@ export class LocalPostgres {
     await runCommand(...this.asOwner(join(this.binDir, 'pg_ctl'), ['-D', this.dataDir, '-m', 'fast', '-w', 'stop']), { stdio: 'ignore' });
   }
 
+  /** Stops the server if this process started it and deletes the cluster's folder. */
+  async remove(): Promise<void> {
+    await this.stop();
+    rmSync(this.dataDir, { recursive: true, force: true });
+  }
+
   /** Creates a database when it does not exist yet. */
   async ensureDatabase(name: string): Promise<void> {
     if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new Error(`invalid database name ${name}`);
@@ -58,13 +75,40 @@ export class LocalPostgres {
     }
   }
 
+  private async chooseFolder(): Promise<string> {
+    const canEnter = !isRoot() || (await this.ownerCanEnter(this.wantedDir));
+    const dir = chooseClusterFolder(this.wantedDir, canEnter, this.clustersRoot);
+    if (dir !== this.wantedDir) {
+      this.prepareClustersRoot();
+      console.log(`The postgres account cannot enter ${this.wantedDir}; this checkout's cluster is kept in ${dir}.`);
+    }
+    return dir;
+  }
+
+  /** Whether the postgres account can reach the wanted folder (asked of the account itself, so ACLs and groups count). */
+  private async ownerCanEnter(dir: string): Promise<boolean> {
+    let existing = dir;
+    while (!existsSync(existing)) existing = dirname(existing);
+    const code = await runCommand('runuser', ['-u', 'postgres', '--', 'test', '-x', existing], { stdio: 'ignore' });
+    return code === 0;
+  }
+
+  private prepareClustersRoot(): void {
+    mkdirSync(this.clustersRoot, { recursive: true, mode: 0o700 });
+    const { uid, gid } = postgresAccount();
+    chownSync(this.clustersRoot, uid, gid);
+  }
+
   private async isRunning(): Promise<boolean> {
     const code = await runCommand(...this.asOwner(join(this.binDir, 'pg_ctl'), ['-D', this.dataDir, 'status']), { stdio: 'ignore' });
     return code === 0;
   }
 
   private async initCluster(): Promise<void> {
+    // Folders on the way are created enterable (a umask of 077 must not lock the account out); the cluster's own is 700.
+    mkdirSync(dirname(this.dataDir), { recursive: true, mode: 0o755 });
     mkdirSync(this.dataDir, { recursive: true, mode: 0o700 });
+    chmodSync(this.dataDir, 0o700);
     if (readdirSync(this.dataDir).length > 0) {
       throw new Error(`${this.dataDir} is not empty but holds no PostgreSQL cluster; move it away and start again.`);
     }

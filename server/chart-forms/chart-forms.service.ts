@@ -21,7 +21,7 @@ export async function getChartForm(db: DbOrTrx, chartFormId: string): Promise<Ch
 
 function duplicateName(error: unknown): never {
   if (pgErrorCode(error) === PG_UNIQUE_VIOLATION) {
-    throw new AppError(HTTP.conflict, 'conflict', 'Another chart form already has this name.', { name: 'already used by another chart form' });
+    throw new AppError(HTTP.conflict, 'chart_form_name_taken', 'Another chart form already has this name.', { name: 'already used by another chart form' });
   }
   throw error;
 }
@@ -33,7 +33,7 @@ export async function createChartForm(db: DbOrTrx, form: ChartForm): Promise<Cha
 function inUse(scanCount: number): AppError {
   return new AppError(
     HTTP.conflict,
-    'conflict',
+    'chart_form_in_use',
     `This chart form is used by ${scanCount} scan${scanCount === 1 ? '' : 's'}, whose tracing depends on its geometry; create a new chart form instead.`,
     { scanCount },
   );

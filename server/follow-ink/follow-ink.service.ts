@@ -27,10 +27,10 @@ export async function followScanInk(db: Db, storage: Storage, scanId: string, re
   const scan = await findScanToFollow(db, scanId);
   if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
   if (!TRACEABLE_STATUSES.includes(scan.status)) {
-    throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
+    throw new AppError(HTTP.conflict, 'scan_not_traceable', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
   }
   if (!scan.chartFormId || !scan.chartStart) {
-    throw new AppError(HTTP.conflict, 'conflict', 'This scan has no chart form or chart start yet; catalogue it before tracing.');
+    throw new AppError(HTTP.conflict, 'scan_incomplete', 'This scan has no chart form or chart start yet; catalogue it before tracing.');
   }
   const form = await chartFormsRepository.findChartFormById(db, scan.chartFormId);
   if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
@@ -74,7 +74,7 @@ async function decodePage(db: Db, storage: Storage, scanId: string): Promise<Raw
   const file = await scansRepository.findScanFile(db, scanId);
   if (!file) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
   const source = await findPageSource(storage, file);
-  if (!source) throw new AppError(HTTP.conflict, 'conflict', 'The page image of this scan is not made yet; try again in a minute.');
+  if (!source) throw new AppError(HTTP.conflict, 'derivatives_not_ready', 'The page image of this scan is not made yet; try again in a minute.');
   const { data, info } = await source.open().removeAlpha().raw().toBuffer({ resolveWithObject: true });
   return { data, width: info.width, height: info.height, channels: info.channels as RawImage['channels'] };
 }

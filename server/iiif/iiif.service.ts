@@ -88,7 +88,7 @@ export async function getImageFile(
     throw new AppError(HTTP.notFound, 'not_found', 'The master file of this scan is missing from storage; its image cannot be made.');
   }
   const source = await findPageSource(storage, file);
-  if (!source) throw new AppError(HTTP.conflict, 'conflict', 'The pages of this PDF are still being rendered; try again when its derivatives are ready.');
+  if (!source) throw new AppError(HTTP.conflict, 'derivatives_not_ready', 'The pages of this PDF are still being rendered; try again when its derivatives are ready.');
   const tempPath = storage.newTempPath(`.${request.format}`);
   try {
     let image = source.open();

@@ -20,10 +20,10 @@ export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft,
     const scan = await scansRepository.findScanForTracing(trx, scanId);
     if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
     if (!TRACEABLE_STATUSES.includes(scan.status)) {
-      throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
+      throw new AppError(HTTP.conflict, 'scan_not_traceable', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
     }
     if (!scan.stationId || !scan.chartFormId || !scan.chartStart) {
-      throw new AppError(HTTP.conflict, 'conflict', 'This scan has no station, chart form or chart start yet; catalogue it before tracing.');
+      throw new AppError(HTTP.conflict, 'scan_incomplete', 'This scan has no station, chart form or chart start yet; catalogue it before tracing.');
     }
     const form = await chartFormsRepository.findChartFormById(trx, scan.chartFormId);
     if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');

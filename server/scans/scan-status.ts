@@ -1,30 +1,9 @@
 import type { ScanDetail, ScanStatus } from '@shared/api/scans';
 import { SCAN_STATUS_LABELS } from '@shared/api/scans';
+import { ALLOWED_STATUS_MOVES, canMoveStatus, missingForTracing, type TracingNeed } from '@shared/api/scan-status';
 import { AppError, HTTP } from '../errors/app-error';
 
-/**
- * The moves an archivist may make. `traced` is reached by handing in an ink line, not by this route;
- * any state may be withdrawn (with a reason), and a withdrawn scan is restored to received.
- */
-export const ALLOWED_STATUS_MOVES: Record<ScanStatus, readonly ScanStatus[]> = {
-  received: ['ready_to_trace', 'withdrawn'],
-  ready_to_trace: ['received', 'withdrawn'],
-  traced: ['approved', 'ready_to_trace', 'withdrawn'],
-  approved: ['traced', 'withdrawn'],
-  withdrawn: ['received'],
-};
-
-/** What a scan lacks before volunteers may trace it, as field names (empty when nothing). */
-export function missingForTracing(scan: Pick<ScanDetail, 'stationId' | 'chartFormId' | 'chartStart' | 'derivativeState'>): string[] {
-  const missing: string[] = [];
-  if (!scan.stationId) missing.push('stationId');
-  if (!scan.chartFormId) missing.push('chartFormId');
-  if (!scan.chartStart) missing.push('chartStart');
-  if (scan.derivativeState !== 'ready') missing.push('derivativeState');
-  return missing;
-}
-
-const MISSING_LABELS: Record<string, string> = {
+const MISSING_LABELS: Record<TracingNeed, string> = {
   stationId: 'a station',
   chartFormId: 'a chart form',
   chartStart: 'a chart start',
@@ -33,9 +12,9 @@ const MISSING_LABELS: Record<string, string> = {
 
 /** Throws 409 unless the move is allowed and, for ready to trace, the scan has everything tracing needs. */
 export function checkStatusMove(scan: ScanDetail, to: ScanStatus): void {
-  if (scan.status === to) throw new AppError(HTTP.conflict, 'conflict', `The scan is already ${SCAN_STATUS_LABELS[to]}.`);
-  if (!ALLOWED_STATUS_MOVES[scan.status].includes(to)) {
-    throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${SCAN_STATUS_LABELS[scan.status]} cannot become ${SCAN_STATUS_LABELS[to]}.`, {
+  if (scan.status === to) throw new AppError(HTTP.conflict, 'status_unchanged', `The scan is already ${SCAN_STATUS_LABELS[to]}.`);
+  if (!canMoveStatus(scan.status, to)) {
+    throw new AppError(HTTP.conflict, 'status_move_not_allowed', `A scan that is ${SCAN_STATUS_LABELS[scan.status]} cannot become ${SCAN_STATUS_LABELS[to]}.`, {
       allowed: ALLOWED_STATUS_MOVES[scan.status],
     });
   }
@@ -44,7 +23,7 @@ export function checkStatusMove(scan: ScanDetail, to: ScanStatus): void {
     if (missing.length > 0) {
       throw new AppError(
         HTTP.conflict,
-        'conflict',
+        'scan_incomplete',
         `The scan cannot be ready to trace without ${missing.map((field) => MISSING_LABELS[field]).join(', ')}.`,
         { missing },
       );

@@ -9,7 +9,8 @@ import { versionConflict } from '../http/version-conflict';
 import * as instrumentsRepository from '../instruments/instruments.repository';
 import type { Storage } from '../storage/storage';
 import { diffScanMetadata, TRACING_FIELDS } from './scan-metadata';
-import { checkStatusMove, missingForTracing } from './scan-status';
+import { missingForTracing } from '@shared/api/scan-status';
+import { checkStatusMove } from './scan-status';
 import type { ScanDeps } from './scan-deps';
 import { PREVIEW_LONGEST_SIDE_PX, writePreview } from './scan-image';
 import { findPageSource } from '../jobs/page-source';
@@ -82,7 +83,7 @@ export async function applyScanMetadata(
     if ((current.status === 'traced' || current.status === 'approved') && TRACING_FIELDS.some((field) => field in changes)) {
       throw new AppError(
         HTTP.conflict,
-        'conflict',
+        'scan_fields_locked',
         `The station, chart form and chart start of a ${SCAN_STATUS_LABELS[current.status]} scan are what its ink line was read with; return it to ready to trace first.`,
       );
     }
@@ -90,7 +91,7 @@ export async function applyScanMetadata(
     if (current.status === 'ready_to_trace') {
       const missing = missingForTracing(merged).filter((field) => field !== 'derivativeState');
       if (missing.length > 0) {
-        throw new AppError(HTTP.conflict, 'conflict', 'A scan that is ready to trace needs its station, chart form and chart start.', { missing });
+        throw new AppError(HTTP.conflict, 'scan_incomplete', 'A scan that is ready to trace needs its station, chart form and chart start.', { missing });
       }
     }
     if ('instrumentId' in changes || 'stationId' in changes) await checkInstrumentStation(trx, merged.instrumentId, merged.stationId);
@@ -131,7 +132,7 @@ export async function retryDerivatives(deps: ScanDeps, scanId: string): Promise<
     const current = await scansRepository.lockScan(trx, scanId);
     if (!current) throw scanNotFound();
     if (current.derivativeState !== 'failed') {
-      throw new AppError(HTTP.conflict, 'conflict', `Only failed derivatives can be retried; these are ${current.derivativeState}.`);
+      throw new AppError(HTTP.conflict, 'derivatives_not_failed', `Only failed derivatives can be retried; these are ${current.derivativeState}.`);
     }
     await scansRepository.setDerivativeState(trx, scanId, 'queued', { error: current.derivativeError });
     await deps.jobs.enqueue(trx, [scanId]);
@@ -146,7 +147,7 @@ export async function getPreviewPath(db: Db, storage: Storage, scanId: string): 
   const previewKey = storage.previewKey(file.sha256, file.pageIndex);
   if (!(await storage.exists(previewKey))) {
     const source = await findPageSource(storage, file);
-    if (!source) throw new AppError(HTTP.conflict, 'conflict', 'The preview of this PDF page is not made yet; try again when its derivatives are ready.');
+    if (!source) throw new AppError(HTTP.conflict, 'derivatives_not_ready', 'The preview of this PDF page is not made yet; try again when its derivatives are ready.');
     const tempPath = storage.newTempPath('.jpg');
     try {
       if (file.mediaType === 'application/pdf' || file.mediaType === 'image/tiff') {

@@ -22,7 +22,7 @@ export async function getStation(db: DbOrTrx, stationId: string): Promise<Statio
 function uniqueViolation(error: unknown): never {
   if (pgErrorCode(error) === PG_UNIQUE_VIOLATION) {
     const field = pgConstraint(error) === 'station_wigos_id_key' ? 'wigosId' : 'code';
-    throw new AppError(HTTP.conflict, 'conflict', `Another station already has this ${field === 'code' ? 'code' : 'WIGOS id'}.`, {
+    throw new AppError(HTTP.conflict, 'station_identifier_taken', `Another station already has this ${field === 'code' ? 'code' : 'WIGOS id'}.`, {
       [field]: 'already used by another station',
     });
   }

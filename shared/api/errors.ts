@@ -24,8 +24,27 @@ export type ApiErrorCode =
   /** A share link that does not exist, has expired or was revoked (the three are not told apart). */
   | 'share_link_not_found'
   | 'rate_limited'
+  /** A shared edit carried a version that is no longer the stored one. */
   | 'version_conflict'
-  | 'conflict'
+  | 'chart_form_name_taken'
+  /** A chart form that scans use keeps its geometry: their tracing depends on it. */
+  | 'chart_form_in_use'
+  /** Another station has this code or WIGOS id. */
+  | 'station_identifier_taken'
+  /** The scan already has the status asked for. */
+  | 'status_unchanged'
+  /** The scan's status cannot move to the one asked for (details list the allowed moves). */
+  | 'status_move_not_allowed'
+  /** The scan lacks what tracing needs (details list the missing fields). */
+  | 'scan_incomplete'
+  /** Station, chart form and chart start of a traced or approved scan are what its ink line was read with. */
+  | 'scan_fields_locked'
+  /** The scan's status does not allow tracing (only ready to trace and traced scans are traced). */
+  | 'scan_not_traceable'
+  /** Only failed derivatives can be retried. */
+  | 'derivatives_not_failed'
+  /** The page image or tiles of the scan are not made yet. */
+  | 'derivatives_not_ready'
   | 'internal_error';
 
 export interface ApiErrorBody {

@@ -1,3 +1,4 @@
+import { FEWEST_PINS } from '../domain/registration-model';
 import type { SeriesFlag } from './series';
 
 /** A pin as the volunteer types it: a pixel on the scan and the printed time and pressure there. */
@@ -57,7 +58,7 @@ export function isFiniteNumber(x: unknown): x is number {
 export function readPins(raw: unknown, details: Record<string, string>): PinInput[] {
   const pins: PinInput[] = [];
   if (!Array.isArray(raw)) details['pins'] = 'pins must be a list';
-  else if (raw.length < 3) details['pins'] = 'at least three pins are needed to register a chart';
+  else if (raw.length < FEWEST_PINS) details['pins'] = `at least ${FEWEST_PINS} pins are needed to register a chart`;
   else if (raw.length > MAX_PINS) details['pins'] = `at most ${MAX_PINS} pins`;
   else {
     raw.forEach((item: unknown, i: number) => {

@@ -51,8 +51,16 @@ export type StationSortKey = (typeof STATION_SORT_KEYS)[number];
 
 /** A station code: letters, digits and hyphens, 2–12 characters. */
 export const STATION_CODE_PATTERN = /^[A-Za-z0-9-]{2,12}$/;
-/** A WIGOS station identifier: series-issuer-issue number-local identifier, e.g. 0-20000-0-01492. */
+/** A WIGOS station identifier: series-issuer-issue number-local identifier, e.g. 0-20000-0-01492 (WMO-No. 1160). */
 export const WIGOS_ID_PATTERN = /^\d+-\d+-\d+-[A-Za-z0-9]{1,16}$/;
+
+/** The ranges a station's numbers must fall in; degrees and metres (from the lowest land to above the highest station). */
+export const STATION_NUMBER_RANGES = {
+  latitude: { min: -90, max: 90 },
+  longitude: { min: -180, max: 180 },
+  elevationM: { min: -500, max: 9000 },
+  barometerHeightM: { min: -500, max: 9000 },
+} as const;
 
 /** True for a time zone name the runtime's IANA database knows. */
 export function isTimeZone(name: string): boolean {
@@ -72,13 +80,13 @@ function readStationFields(reader: FieldReader): Partial<StationInput> {
   else if (code !== undefined) fields.code = code.toUpperCase();
   const name = reader.text('name', { isRequired: true });
   if (name !== undefined) fields.name = name;
-  const latitude = reader.nullableNumber('latitude', { min: -90, max: 90 });
+  const latitude = reader.nullableNumber('latitude', STATION_NUMBER_RANGES.latitude);
   if (latitude !== undefined) fields.latitude = latitude;
-  const longitude = reader.nullableNumber('longitude', { min: -180, max: 180 });
+  const longitude = reader.nullableNumber('longitude', STATION_NUMBER_RANGES.longitude);
   if (longitude !== undefined) fields.longitude = longitude;
-  const elevationM = reader.nullableNumber('elevationM', { min: -500, max: 9000 });
+  const elevationM = reader.nullableNumber('elevationM', STATION_NUMBER_RANGES.elevationM);
   if (elevationM !== undefined) fields.elevationM = elevationM;
-  const barometerHeightM = reader.nullableNumber('barometerHeightM', { min: -500, max: 9000 });
+  const barometerHeightM = reader.nullableNumber('barometerHeightM', STATION_NUMBER_RANGES.barometerHeightM);
   if (barometerHeightM !== undefined) fields.barometerHeightM = barometerHeightM;
   const timeZone = reader.text('timeZone', { isRequired: true, maxLength: 64 });
   if (timeZone !== undefined && !isTimeZone(timeZone)) reader.problem('timeZone', 'timeZone must be an IANA zone name such as Europe/Oslo');

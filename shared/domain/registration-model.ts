@@ -8,6 +8,8 @@ export type RegistrationModel = 'similarity' | 'affine' | 'projective';
 
 /** Fewest pins each model accepts. */
 export const MIN_PINS: Readonly<Record<RegistrationModel, number>> = { similarity: 3, affine: 3, projective: 4 };
+/** Fewest pins any registration accepts: what a draft or a Follow ink request must carry. */
+export const FEWEST_PINS = Math.min(...Object.values(MIN_PINS));
 /** Free parameters of each model. */
 export const PARAMETER_COUNT: Readonly<Record<RegistrationModel, number>> = { similarity: 4, affine: 6, projective: 8 };
 

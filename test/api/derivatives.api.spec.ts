@@ -142,7 +142,7 @@ describe('scan derivatives worker', () => {
     const response = await request(context.app).post(API.scanDerivativesRetry(scanId)).set('Authorization', `Bearer ${archivist.token}`);
 
     expect(response.status).toBe(409);
-    expect(response.body.error.code).toBe('conflict');
+    expect(response.body.error.code).toBe('derivatives_not_failed');
   });
 
   it('when a crash left a scan working with a half-written folder and no job, then a new worker requeues it and finishes', async () => {

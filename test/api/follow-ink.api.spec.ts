@@ -132,6 +132,7 @@ describe('Follow ink', () => {
     const response = await follow({ pins });
 
     expect(response.status).toBe(409);
+    expect(response.body.error.code).toBe('scan_not_traceable');
   });
 
   it('when an archivist asks, then it is 403', async () => {

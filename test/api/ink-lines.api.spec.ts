@@ -168,7 +168,7 @@ describe('handing in an ink line', () => {
     const response = await handIn(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START));
 
     expect(response.status).toBe(409);
-    expect(response.body.error.code).toBe('conflict');
+    expect(response.body.error.code).toBe('scan_not_traceable');
     expect(await countRows('ink_line')).toBe(0);
   });
 

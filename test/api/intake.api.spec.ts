@@ -136,6 +136,7 @@ describe('intake batches', () => {
     expect(pngImage.status).toBe(200);
     expect(pngImage.headers['content-type']).toBe('image/jpeg');
     expect(pdfImage.status).toBe(409);
+    expect(pdfImage.body.error.code).toBe('derivatives_not_ready');
     expect(pdfImage.body.error.message).toMatch(/still being rendered/);
   });
 

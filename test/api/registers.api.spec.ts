@@ -71,6 +71,7 @@ describe('registers: stations, instruments, chart forms', () => {
       const response = await asArchivist(request(context.app).post(API.stations)).send({ ...NEW_STATION, wigosId: null });
 
       expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('station_identifier_taken');
       expect(response.body.error.details).toEqual({ code: 'already used by another station' });
     });
 
@@ -169,6 +170,16 @@ describe('registers: stations, instruments, chart forms', () => {
       });
     });
 
+    it('when a second chart form takes the same name, then it answers 409 chart_form_name_taken naming name', async () => {
+      await asArchivist(request(context.app).post(API.chartForms)).send({ ...TEST_WEEKLY_FORM, name: 'Weekly twin' });
+
+      const response = await asArchivist(request(context.app).post(API.chartForms)).send({ ...TEST_WEEKLY_FORM, name: 'Weekly twin' });
+
+      expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('chart_form_name_taken');
+      expect(Object.keys(response.body.error.details)).toEqual(['name']);
+    });
+
     it('when the geometry cannot be drawn, then it answers 400 with checkChartForm messages', async () => {
       const response = await asArchivist(request(context.app).post(API.chartForms)).send({ ...TEST_WEEKLY_FORM, name: 'Bad', pressureMax: 940, penArmRadiusMm: 10 });
 
@@ -202,7 +213,7 @@ describe('registers: stations, instruments, chart forms', () => {
 
       expect(read.body.scanCount).toBe(1);
       expect(response.status).toBe(409);
-      expect(response.body.error.code).toBe('conflict');
+      expect(response.body.error.code).toBe('chart_form_in_use');
       expect(response.body.error.message).toContain('create a new chart form instead');
       const row = await context.db.selectFrom('chart_form').select(['mm_per_hour', 'version']).where('id', '=', form.id).executeTakeFirstOrThrow();
       expect(row).toEqual({ mm_per_hour: TEST_WEEKLY_FORM.mmPerHour, version: 1 });

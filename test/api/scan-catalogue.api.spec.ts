@@ -166,6 +166,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       const response = await setStatus({ status: 'ready_to_trace' });
 
       expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('scan_incomplete');
       expect(response.body.error.details).toEqual({ missing: ['stationId', 'chartFormId', 'chartStart', 'derivativeState'] });
       expect(response.body.error.message).toMatch(/a station, a chart form, a chart start/);
     });
@@ -197,10 +198,18 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       expect(restored.body).toMatchObject({ status: 'received', withdrawnReason: null });
     });
 
+    it('when a scan is moved to the status it has, then it answers 409 status_unchanged', async () => {
+      const response = await setStatus({ status: 'received' });
+
+      expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('status_unchanged');
+    });
+
     it('when a move is not allowed, then it answers 409 listing the allowed ones', async () => {
       const response = await setStatus({ status: 'approved' });
 
       expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('status_move_not_allowed');
       expect(response.body.error.details).toEqual({ allowed: ['ready_to_trace', 'withdrawn'] });
     });
 
@@ -211,6 +220,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       const response = await asArchivist(request(context.app).patch(API.scan(traced))).send({ version: 1, stationId: otherStation });
 
       expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('scan_fields_locked');
       const row = await context.db.selectFrom('scan').select(['station_id', 'version']).where('id', '=', traced).executeTakeFirstOrThrow();
       expect(row).toEqual({ station_id: stationId, version: 1 });
     });
@@ -221,6 +231,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
       const response = await asArchivist(request(context.app).patch(API.scan(ready))).send({ version: 1, chartFormId: null });
 
       expect(response.status).toBe(409);
+      expect(response.body.error.code).toBe('scan_incomplete');
       expect(response.body.error.details).toEqual({ missing: ['chartFormId'] });
     });
 

@@ -138,7 +138,7 @@ export class ScanMetadataForm {
 }
 
 function problemOf(error: unknown): Problem {
-  if (error instanceof ApiError && (error.code === 'version_conflict' || error.status === 409)) {
+  if (error instanceof ApiError && error.code === 'version_conflict') {
     return { kind: 'conflict', message: 'Someone else changed this scan after you opened it. Reload to see their version, then make your change again.' };
   }
   if (error instanceof ApiError) return { kind: 'invalid', message: error.message, details: error.details };

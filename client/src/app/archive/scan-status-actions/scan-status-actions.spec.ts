@@ -9,23 +9,11 @@ import type { ScanDetail } from '@shared/api/scans';
 
 import { scanDetailForTest } from '../../core/api/scan-for-test';
 import { httpErrorInterceptor } from '../../core/http/http-error-interceptor';
-import { missingForTracing, ScanStatusActions } from './scan-status-actions';
+import { ScanStatusActions } from './scan-status-actions';
 
 function settle(): Promise<void> {
   return new Promise((resolve) => setTimeout(resolve, 0));
 }
-
-describe('missingForTracing', () => {
-  it('when a scan arrived without metadata and its tiles are still being made, then all four needs are named', () => {
-    const scan = scanDetailForTest({ stationId: null, chartFormId: null, chartStart: null, derivativeState: 'working' });
-
-    expect(missingForTracing(scan)).toEqual(['station', 'chart form', 'chart start', 'image tiles']);
-  });
-
-  it('when everything is in place, then nothing is missing', () => {
-    expect(missingForTracing(scanDetailForTest())).toEqual([]);
-  });
-});
 
 describe('ScanStatusActions', () => {
   let controller: HttpTestingController;
@@ -75,7 +63,7 @@ describe('ScanStatusActions', () => {
     await (await loader.getHarness(MatButtonHarness.with({ text: /Ready to trace/ }))).click();
     controller
       .expectOne('/api/scans/scan-1/status')
-      .flush({ error: { code: 'conflict', message: 'The scan is not ready to trace.', details: { stationId: 'station is not set' } } }, { status: 409, statusText: 'Conflict' });
+      .flush({ error: { code: 'scan_incomplete', message: 'The scan is not ready to trace.', details: { stationId: 'station is not set' } } }, { status: 409, statusText: 'Conflict' });
     await settle();
     await fixture.whenStable();
     const text = (fixture.nativeElement as HTMLElement).querySelector('[data-testid="status-problem"]')?.textContent ?? '';

@@ -6,6 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { missingForTracing, TRACING_NEED_LABELS } from '@shared/api/scan-status';
 import { SCAN_STATUS_LABELS, type ScanDetail, type ScanStatusChange } from '@shared/api/scans';
 
 import { ScansApi } from '../../core/api/scans-api';
@@ -14,16 +15,6 @@ import { ApiError } from '../../core/http/api-error';
 interface StatusProblem {
   message: string;
   details: Record<string, string>;
-}
-
-/** The fields a scan needs before it may be traced (the server checks the same and names what is missing). */
-export function missingForTracing(scan: ScanDetail): string[] {
-  const missing: string[] = [];
-  if (!scan.stationId) missing.push('station');
-  if (!scan.chartFormId) missing.push('chart form');
-  if (!scan.chartStart) missing.push('chart start');
-  if (scan.derivativeState !== 'ready') missing.push('image tiles');
-  return missing;
 }
 
 /** Moves a scan along its states: ready to trace, withdraw with a reason, restore a withdrawn scan. */
@@ -86,7 +77,7 @@ export class ScanStatusActions {
   protected readonly reason = signal('');
   protected readonly isBusy = signal(false);
   protected readonly problem = signal<StatusProblem | null>(null);
-  protected readonly missing = computed(() => missingForTracing(this.scan()));
+  protected readonly missing = computed(() => missingForTracing(this.scan()).map((need) => TRACING_NEED_LABELS[need]));
 
   protected change(change: ScanStatusChange): void {
     this.isBusy.set(true);

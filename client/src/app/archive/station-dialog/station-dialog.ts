@@ -7,12 +7,12 @@ import { MAT_DIALOG_DATA, MatDialogModule, MatDialogRef } from '@angular/materia
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import type { StationSummary } from '@shared/api/stations';
+import { STATION_NUMBER_RANGES, type StationSummary } from '@shared/api/stations';
 import { map, startWith } from 'rxjs';
 
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
-import { EMPTY_STATION, ianaZoneValidator, numberInRange, stationInputOf, valuesOfStation, wigosIdValidator } from './station-values';
+import { EMPTY_STATION, ianaZoneValidator, numberInRange, stationCodeValidator, stationInputOf, valuesOfStation, wigosIdValidator } from './station-values';
 
 export interface StationDialogData {
   station: StationSummary | null;
@@ -35,13 +35,13 @@ export class StationDialog {
   protected readonly data = inject<StationDialogData>(MAT_DIALOG_DATA);
 
   protected readonly form = inject(NonNullableFormBuilder).group({
-    code: ['', [Validators.required, Validators.maxLength(16)]],
+    code: ['', [Validators.required, stationCodeValidator]],
     name: ['', [Validators.required, Validators.maxLength(200)]],
     wigosId: ['', wigosIdValidator],
-    latitude: ['', numberInRange(-90, 90)],
-    longitude: ['', numberInRange(-180, 180)],
-    elevationM: ['', numberInRange(-500, 9000)],
-    barometerHeightM: ['', numberInRange(-500, 9000)],
+    latitude: ['', numberInRange(STATION_NUMBER_RANGES.latitude)],
+    longitude: ['', numberInRange(STATION_NUMBER_RANGES.longitude)],
+    elevationM: ['', numberInRange(STATION_NUMBER_RANGES.elevationM)],
+    barometerHeightM: ['', numberInRange(STATION_NUMBER_RANGES.barometerHeightM)],
     timeZone: ['', [Validators.required, ianaZoneValidator]],
     timeStandard: this.data.station?.timeStandard ?? EMPTY_STATION.timeStandard,
     historyNotes: [''],

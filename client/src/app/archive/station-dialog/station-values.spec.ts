@@ -1,6 +1,7 @@
 import { FormControl } from '@angular/forms';
 
-import { ianaZoneValidator, numberInRange, stationInputOf, valuesOfStation, wigosIdValidator, EMPTY_STATION } from './station-values';
+import { STATION_NUMBER_RANGES } from '@shared/api/stations';
+import { ianaZoneValidator, numberInRange, stationCodeValidator, stationInputOf, valuesOfStation, wigosIdValidator, EMPTY_STATION } from './station-values';
 
 describe('station form values', () => {
   it('when a station is typed with blanks, then blanks become nulls and text is trimmed', () => {
@@ -50,8 +51,18 @@ describe('station validators', () => {
     expect(ianaZoneValidator(new FormControl(zone, { nonNullable: true })) === null).toBe(isValid);
   });
 
+  it.each<[string, boolean]>([
+    ['KRO', true],
+    ['kro-2', true],
+    ['K', false],
+    ['KESTREL-RIDGE-OBS', false],
+    ['KR O', false],
+  ])('when the station code is %p, then it is accepted as the server accepts it: %p', (code, isValid) => {
+    expect(stationCodeValidator(new FormControl(code, { nonNullable: true })) === null).toBe(isValid);
+  });
+
   it('when a latitude is beyond the pole, then it is refused', () => {
-    const latitude = numberInRange(-90, 90);
+    const latitude = numberInRange(STATION_NUMBER_RANGES.latitude);
 
     expect(latitude(new FormControl('91', { nonNullable: true }))).toEqual({ range: { min: -90, max: 90 } });
     expect(latitude(new FormControl('-90', { nonNullable: true }))).toBeNull();

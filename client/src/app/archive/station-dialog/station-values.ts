@@ -1,5 +1,5 @@
 import type { AbstractControl, ValidationErrors } from '@angular/forms';
-import type { StationInput, StationSummary, TimeStandard } from '@shared/api/stations';
+import { isTimeZone, STATION_CODE_PATTERN, WIGOS_ID_PATTERN, type StationInput, type StationSummary, type TimeStandard } from '@shared/api/stations';
 
 /** The station form's text values. */
 export interface StationValues {
@@ -67,7 +67,7 @@ export function stationInputOf(values: StationValues): StationInput {
 }
 
 /** A number within [min, max], or empty. */
-export function numberInRange(min: number, max: number) {
+export function numberInRange({ min, max }: { min: number; max: number }) {
   return (control: AbstractControl<string>): ValidationErrors | null => {
     if (control.value.trim() === '') return null;
     const n = Number(control.value);
@@ -79,18 +79,19 @@ export function numberInRange(min: number, max: number) {
 export function ianaZoneValidator(control: AbstractControl<string>): ValidationErrors | null {
   const zone = control.value.trim();
   if (zone === '') return null;
-  try {
-    new Intl.DateTimeFormat('en', { timeZone: zone });
-    return null;
-  } catch {
-    // RangeError: not a zone name.
-    return { ianaZone: true };
-  }
+  return isTimeZone(zone) ? null : { ianaZone: true };
 }
 
 /** A WIGOS station identifier: series-issuer-issue number-local identifier, e.g. 0-20000-0-01492 (WMO-No. 1160). */
 export function wigosIdValidator(control: AbstractControl<string>): ValidationErrors | null {
   const id = control.value.trim();
   if (id === '') return null;
-  return /^\d+-\d+-\d+-[A-Za-z0-9]{1,16}$/.test(id) ? null : { wigosId: true };
+  return WIGOS_ID_PATTERN.test(id) ? null : { wigosId: true };
+}
+
+/** A station code as the server takes it: 2–12 letters, digits or hyphens. */
+export function stationCodeValidator(control: AbstractControl<string>): ValidationErrors | null {
+  const code = control.value.trim();
+  if (code === '') return null;
+  return STATION_CODE_PATTERN.test(code) ? null : { stationCode: true };
 }

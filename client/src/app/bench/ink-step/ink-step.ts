@@ -4,14 +4,12 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { FEWEST_PINS as MIN_PINS } from '@shared/domain/registration-model';
 
 import { ApiError } from '../../core/http/api-error';
 import { BenchState } from '../bench-state';
 import { FollowInkApi } from '../follow-ink-api';
 import { LOW_CONFIDENCE } from '../scan-stage/stage-marks';
-
-/** Fewest pins the server can register a chart with. */
-const MIN_PINS = 3;
 
 /**
  * The Ink step: Follow ink finds the pen line from the pins; knots can also be clicked along the line,

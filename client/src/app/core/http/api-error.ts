@@ -75,7 +75,6 @@ function codeForStatus(status: number): ApiErrorCode {
   if (status === 401) return 'unauthenticated';
   if (status === 403) return 'forbidden';
   if (status === 404) return 'not_found';
-  if (status === 409) return 'conflict';
   if (status >= 400 && status < 500) return 'bad_request';
   return 'internal_error';
 }
