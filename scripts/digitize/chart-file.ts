@@ -1,6 +1,6 @@
+import { normalizeInstant, parseInstantMs, readInstant } from '@shared/api/parse-instant';
+import { parseChartFormInput } from '@shared/api/parse-chart-form';
 import type { ChartForm } from '@shared/domain/chart-form';
-import { checkChartForm } from '@shared/domain/chart-form';
-import { isPressureUnit } from '@shared/domain/pressure-units';
 
 /** A pin on a printed grid crossing: scan pixel, the instant of its time line and the pressure of its line. */
 export interface ChartFilePin {
@@ -35,20 +35,7 @@ export interface ChartFile {
   ink: { colour?: string; seed?: { xPx: number; yPx: number } };
 }
 
-const ISO_INSTANT = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/;
 const HEX_COLOUR = /^#[0-9a-fA-F]{6}$/;
-const FORM_NUMBERS = [
-  'pressureMin',
-  'pressureMax',
-  'drumHours',
-  'mmPerHour',
-  'mmPerUnit',
-  'gridPressureStep',
-  'labelPressureStep',
-  'gridHoursStep',
-  'labelHoursStep',
-] as const;
-
 type Problems = string[];
 
 function isRecord(x: unknown): x is Record<string, unknown> {
@@ -61,9 +48,8 @@ function isFiniteNumber(x: unknown): x is number {
 
 function checkInstant(value: unknown, path: string, problems: Problems, required = true): void {
   if (value === undefined && !required) return;
-  if (typeof value !== 'string' || !ISO_INSTANT.test(value) || Number.isNaN(Date.parse(value))) {
-    problems.push(`${path}: must be an ISO 8601 instant with a time zone, e.g. 2026-03-02T00:00:00Z`);
-  }
+  const reading = readInstant(value);
+  if (!reading.ok) problems.push(`${path}: ${reading.problem}`);
 }
 
 function checkNumber(value: unknown, path: string, problems: Problems, required = true): void {
@@ -71,19 +57,16 @@ function checkNumber(value: unknown, path: string, problems: Problems, required 
   if (!isFiniteNumber(value)) problems.push(`${path}: must be a number`);
 }
 
-function checkForm(value: unknown, problems: Problems): void {
+/** The form is checked as the API checks a new chart form (parseChartFormInput), with paths under `form.`. */
+function readForm(value: unknown, problems: Problems): ChartForm | null {
   if (!isRecord(value)) {
     problems.push('form: must be an object with the chart form fields');
-    return;
+    return null;
   }
-  if (typeof value['name'] !== 'string') problems.push('form.name: must be a string');
-  if (!isPressureUnit(value['pressureUnit'])) problems.push('form.pressureUnit: must be one of hPa, mbar, kPa, inHg, mmHg');
-  for (const key of FORM_NUMBERS) checkNumber(value[key], `form.${key}`, problems);
-  if (value['penArmRadiusMm'] !== null) checkNumber(value['penArmRadiusMm'], 'form.penArmRadiusMm', problems);
-  if (value['pivotPressure'] !== null) checkNumber(value['pivotPressure'], 'form.pivotPressure', problems);
-  if (value['arcSide'] !== 1 && value['arcSide'] !== -1) problems.push('form.arcSide: must be 1 or -1');
-  if (problems.some((p) => p.startsWith('form'))) return;
-  for (const [field, message] of Object.entries(checkChartForm(value as unknown as ChartForm))) problems.push(`form.${field}: ${message}`);
+  const parsed = parseChartFormInput(value);
+  if (parsed.ok) return parsed.value;
+  for (const [field, message] of Object.entries(parsed.details)) problems.push(`form.${field}: ${message}`);
+  return null;
 }
 
 function checkList(value: unknown, path: string, problems: Problems, each: (item: Record<string, unknown>, itemPath: string) => void, minItems = 0): void {
@@ -106,7 +89,7 @@ function checkList(value: unknown, path: string, problems: Problems, each: (item
 export function parseChartFile(x: unknown): { ok: true; value: ChartFile } | { ok: false; problems: string[] } {
   const problems: Problems = [];
   if (!isRecord(x)) return { ok: false, problems: ['(root): must be a JSON object'] };
-  checkForm(x['form'], problems);
+  const form = readForm(x['form'], problems);
   checkInstant(x['chartStart'], 'chartStart', problems);
   checkInstant(x['chartOn'], 'chartOn', problems, false);
   checkInstant(x['chartOff'], 'chartOff', problems, false);
@@ -148,20 +131,23 @@ export function parseChartFile(x: unknown): { ok: true; value: ChartFile } | { o
       }
     }
   }
-  if (problems.length === 0 && typeof x['chartOn'] === 'string' && typeof x['chartOff'] === 'string' && Date.parse(x['chartOff']) <= Date.parse(x['chartOn'])) {
+  if (problems.length === 0 && typeof x['chartOn'] === 'string' && typeof x['chartOff'] === 'string' && (parseInstantMs(x['chartOff']) ?? 0) <= (parseInstantMs(x['chartOn']) ?? 0)) {
     problems.push('chartOff: must be after chartOn');
   }
-  if (problems.length > 0) return { ok: false, problems };
+  if (problems.length > 0 || !form) return { ok: false, problems };
+  // Every instant leaves as a full ISO 8601 UTC string, so that the digitizer's Date.parse reads each the same way.
+  const utc = (value: unknown) => normalizeInstant(value) as string;
+  const withUtcTime = <T extends { time: string }>(items: unknown): T[] => ((items as T[] | undefined) ?? []).map((item) => ({ ...item, time: utc(item.time) }));
   return {
     ok: true,
     value: {
-      form: x['form'] as ChartForm,
-      chartStart: x['chartStart'] as string,
-      chartOn: x['chartOn'] as string | undefined,
-      chartOff: x['chartOff'] as string | undefined,
-      pins: x['pins'] as ChartFilePin[],
-      timeMarks: (x['timeMarks'] as ChartFileTimeMark[] | undefined) ?? [],
-      checkReadings: (x['checkReadings'] as ChartFileCheckReading[] | undefined) ?? [],
+      form,
+      chartStart: utc(x['chartStart']),
+      chartOn: x['chartOn'] === undefined ? undefined : utc(x['chartOn']),
+      chartOff: x['chartOff'] === undefined ? undefined : utc(x['chartOff']),
+      pins: withUtcTime<ChartFilePin>(x['pins']),
+      timeMarks: withUtcTime<ChartFileTimeMark>(x['timeMarks']),
+      checkReadings: withUtcTime<ChartFileCheckReading>(x['checkReadings']),
       ink: (ink as ChartFile['ink'] | undefined) ?? {},
     },
   };

@@ -129,6 +129,6 @@ describe('digitizeChart', () => {
 
     rmSync(directory, { recursive: true, force: true });
     expect(run.status).toBe(1);
-    expect(run.stderr).toContain('pins[2].time: must be an ISO 8601 instant');
+    expect(run.stderr).toContain('pins[2].time: must be a date and time');
   });
 });

@@ -3,17 +3,15 @@ import { followInk } from '@shared/domain/ink/follow-ink';
 import { parseHexColour, type RawImage } from '@shared/domain/ink/raw-image';
 import { readingToPixel, RegistrationError, type RegistrationFit } from '@shared/domain/registration';
 import type { ChartForm } from '@shared/domain/chart-form';
-import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
 import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
 import { registerDraft } from '../ink-lines/ink-line-reading';
 import { findPageSource } from '../jobs/page-source';
 import * as scansRepository from '../scans/scans.repository';
 import type { Storage } from '../storage/storage';
-import { findScanToFollow } from './follow-ink.repository';
+import { loadTraceableScan } from '../tracing/traceable-scan';
 import { thinTrace } from './thin-knots';
 
-const TRACEABLE_STATUSES = ['ready_to_trace', 'traced'];
 const MS_PER_HOUR = 3_600_000;
 /** Knot spacing along the line, paper mm: close enough that straight joins stay within a pen width of the curve (common practice). */
 const KNOT_SPACING_MM = 0.75;
@@ -24,16 +22,8 @@ const KNOT_SPACING_MM = 0.75;
  */
 export async function followScanInk(db: Db, storage: Storage, scanId: string, request: FollowInkRequest): Promise<FollowInkResult> {
   const startedMs = Date.now();
-  const scan = await findScanToFollow(db, scanId);
-  if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
-  if (!TRACEABLE_STATUSES.includes(scan.status)) {
-    throw new AppError(HTTP.conflict, 'scan_not_traceable', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
-  }
-  if (!scan.chartFormId || !scan.chartStart) {
-    throw new AppError(HTTP.conflict, 'scan_incomplete', 'This scan has no chart form or chart start yet; catalogue it before tracing.');
-  }
-  const form = await chartFormsRepository.findChartFormById(db, scan.chartFormId);
-  if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
+  const scan = await loadTraceableScan(db, scanId);
+  const form = scan.form;
   const chartStartMs = scan.chartStart.getTime();
   const fit = register(form, request, chartStartMs);
 

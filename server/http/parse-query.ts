@@ -8,8 +8,5 @@ export function readPageQuery<S extends string>(query: Record<string, unknown>, 
   return parsed.value;
 }
 
-const UUID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-export function isUuid(value: unknown): value is string {
-  return typeof value === 'string' && UUID_PATTERN.test(value);
-}
+/** The shared id check under the name the routes know. */
+export { isId as isUuid } from '@shared/api/parse-instant';

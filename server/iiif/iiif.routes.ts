@@ -21,7 +21,7 @@ function sendJsonLd(res: Response, mediaType: string, document: unknown, cacheCo
 }
 
 /**
- * IIIF Image 3.0 level 1 needs CORS (REFERENCES.md §7); viewers send the bearer token, so the preflight
+ * IIIF Image 3.0 level 1 needs CORS (docs/references.md §7); viewers send the bearer token, so the preflight
  * must allow the Authorization header. Answers preflights before authentication.
  */
 const iiifCors: RequestHandler = (req, res, next) => {
@@ -42,7 +42,7 @@ export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandle
   const router = Router();
   router.use(iiifCors, authenticate, requireRoles('archivist', 'volunteer'));
 
-  // §3 base URI: dereferencing it SHOULD give the info document, RECOMMENDED by a 303 (REFERENCES.md §7).
+  // §3 base URI: dereferencing it SHOULD give the info document, RECOMMENDED by a 303 (docs/references.md §7).
   router.get('/3/:scanId', (req, res) => {
     res.redirect(SEE_OTHER, IIIF.info(parseScanId(req.params.scanId)));
   });

@@ -9,7 +9,7 @@ function parse(region: string, size: string, rotation = '0', qualityAndFormat = 
 
 describe('parseImageRequest', () => {
   it.each([
-    // IIIF Image 3.0 §4.7 canonical URI syntax: full region stays "full", size becomes "w,h" (REFERENCES.md §7).
+    // IIIF Image 3.0 §4.7 canonical URI syntax: full region stays "full", size becomes "w,h" (docs/references.md §7).
     ['full', 'max', 'full/1300,700/0/default.jpg'],
     ['square', 'max', '300,0,700,700/700,700/0/default.jpg'],
     ['pct:10,10,50,50', 'max', '130,70,650,350/650,350/0/default.jpg'],

@@ -32,7 +32,7 @@ const INTEGER = /^\d+$/;
 const DECIMAL = /^\d+(\.\d+)?$/;
 
 function parseRegion(text: string, widthPx: number, heightPx: number): { x: number; y: number; width: number; height: number } {
-  // IIIF Image 3.0 §4.1 region: full | square | x,y,w,h | pct:x,y,w,h (REFERENCES.md §7).
+  // IIIF Image 3.0 §4.1 region: full | square | x,y,w,h | pct:x,y,w,h (docs/references.md §7).
   if (text === 'full') return { x: 0, y: 0, width: widthPx, height: heightPx };
   if (text === 'square') {
     const side = Math.min(widthPx, heightPx);
@@ -57,7 +57,7 @@ function parseRegion(text: string, widthPx: number, heightPx: number): { x: numb
 }
 
 function parseSize(text: string, regionWidth: number, regionHeight: number, limits: ImageLimits): { width: number; height: number } {
-  // IIIF Image 3.0 §4.2 size: max | ^max | w, | ,h | pct:n | w,h | !w,h, each with an optional ^ (REFERENCES.md §7).
+  // IIIF Image 3.0 §4.2 size: max | ^max | w, | ,h | pct:n | w,h | !w,h, each with an optional ^ (docs/references.md §7).
   const mayUpscale = text.startsWith('^');
   const body = mayUpscale ? text.slice(1) : text;
   const aspect = regionWidth / regionHeight;

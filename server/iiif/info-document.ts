@@ -31,7 +31,7 @@ export interface InfoDocument {
 }
 
 /**
- * The info.json of one scan (IIIF Image 3.0 §5, required properties as in REFERENCES.md §7): level 2
+ * The info.json of one scan (IIIF Image 3.0 §5, required properties as in docs/references.md §7): level 2
  * (regionByPct, sizeByPct, sizeByConfinedWh, rotationBy90s, color/gray and png are all cheap with sharp).
  */
 export function buildInfoDocument(baseUri: string, widthPx: number, heightPx: number): InfoDocument {

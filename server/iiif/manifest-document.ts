@@ -48,7 +48,7 @@ function maxSize(widthPx: number, heightPx: number): { width: number; height: nu
 }
 
 /**
- * A scan's IIIF Presentation 3.0 Manifest (REFERENCES.md §7): @context on the top resource only, id and type
+ * A scan's IIIF Presentation 3.0 Manifest (docs/references.md §7): @context on the top resource only, id and type
  * on every resource, a label language map, one Canvas of the page's pixel size holding one AnnotationPage with
  * a painting Annotation whose Image body carries the ImageService3 service; navDate is the chart start.
  */

@@ -1,15 +1,13 @@
 import type { InkLineDraft, InkLineSaved } from '@shared/api/ink-lines';
 import { RegistrationError } from '@shared/domain/registration';
 import * as auditRepository from '../audit/scan-audit.repository';
-import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
 import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
 import * as scansRepository from '../scans/scans.repository';
 import * as seriesRepository from '../series/series.repository';
+import { loadTraceableScan } from '../tracing/traceable-scan';
 import * as inkLinesRepository from './ink-lines.repository';
 import { readSeriesPoints, registerDraft } from './ink-line-reading';
-
-const TRACEABLE_STATUSES = ['ready_to_trace', 'traced'];
 
 /**
  * Hands in a trace: fits the pins, reads the knots into hourly series points and, in one transaction,
@@ -17,16 +15,8 @@ const TRACEABLE_STATUSES = ['ready_to_trace', 'traced'];
  */
 export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft, authorId: string): Promise<InkLineSaved> {
   return db.transaction().execute(async (trx) => {
-    const scan = await scansRepository.findScanForTracing(trx, scanId);
-    if (!scan) throw new AppError(HTTP.notFound, 'scan_not_found', 'There is no scan with this id.');
-    if (!TRACEABLE_STATUSES.includes(scan.status)) {
-      throw new AppError(HTTP.conflict, 'scan_not_traceable', `A scan that is ${scan.status.replace(/_/g, ' ')} cannot be traced.`);
-    }
-    if (!scan.stationId || !scan.chartFormId || !scan.chartStart) {
-      throw new AppError(HTTP.conflict, 'scan_incomplete', 'This scan has no station, chart form or chart start yet; catalogue it before tracing.');
-    }
-    const form = await chartFormsRepository.findChartFormById(trx, scan.chartFormId);
-    if (!form) throw new AppError(HTTP.notFound, 'chart_form_not_found', 'The chart form of this scan is missing.');
+    const scan = await loadTraceableScan(trx, scanId, { needsStation: true, forUpdate: true });
+    const form = scan.form;
     const chartStartMs = scan.chartStart.getTime();
 
     let fit;

@@ -1,10 +1,9 @@
-import { normalizeInstant } from '@shared/api/field-reader';
+import { readInstant } from '@shared/api/parse-instant';
 import { normalizeTags } from '@shared/api/parse-scan-metadata';
 import { SCAN_STATUSES, type ScanStatus } from '@shared/api/scans';
 import { validationFailed } from '../errors/app-error';
 import { parsePathId } from '../http/parse-body';
 import { isUuid } from '../http/parse-query';
-import { parseInstantMs } from '../http/parse-time';
 import type { ScanFilter } from './scans.repository';
 import type { ParsedUploadFields } from './scans.service';
 
@@ -19,13 +18,13 @@ export function parseUploadFields(body: unknown, hasFile: boolean): Required<Omi
   if (!hasFile) details['file'] = 'a scan file is required in the "file" part';
   if (!isUuid(record['stationId'])) details['stationId'] = 'stationId must be a station id';
   if (!isUuid(record['chartFormId'])) details['chartFormId'] = 'chartFormId must be a chart form id';
-  const chartStartMs = parseInstantMs(record['chartStart']);
-  if (chartStartMs === null) details['chartStart'] = 'chartStart must be an ISO 8601 UTC instant, e.g. 2026-03-02T00:00Z';
-  if (Object.keys(details).length > 0) throw validationFailed(details, 'The upload has invalid fields.');
+  const chartStart = readInstant(record['chartStart']);
+  if (!chartStart.ok) details['chartStart'] = `chartStart ${chartStart.problem}`;
+  if (!chartStart.ok || Object.keys(details).length > 0) throw validationFailed(details, 'The upload has invalid fields.');
   return {
     stationId: record['stationId'] as string,
     chartFormId: record['chartFormId'] as string,
-    chartStart: new Date(chartStartMs as number),
+    chartStart: new Date(chartStart.ms),
   };
 }
 
@@ -45,9 +44,9 @@ export function parseIntakeFields(body: unknown, hasFile: boolean): Omit<ParsedU
     else details['chartFormId'] = 'chartFormId must be a chart form id';
   }
   if (present('chartStart')) {
-    const chartStartMs = parseInstantMs(record['chartStart']);
-    if (chartStartMs === null) details['chartStart'] = 'chartStart must be an ISO 8601 UTC instant, e.g. 1931-03-02T08:00Z';
-    else fields.chartStart = new Date(chartStartMs);
+    const chartStart = readInstant(record['chartStart']);
+    if (!chartStart.ok) details['chartStart'] = `chartStart ${chartStart.problem}`;
+    else fields.chartStart = new Date(chartStart.ms);
   }
   if (Object.keys(details).length > 0) throw validationFailed(details, 'The upload has invalid fields.');
   return fields;
@@ -61,16 +60,16 @@ function readId(query: Record<string, unknown>, key: string, details: Record<str
   return undefined;
 }
 
-function readInstant(query: Record<string, unknown>, key: string, details: Record<string, string>): Date | undefined {
+function readFilterInstant(query: Record<string, unknown>, key: string, details: Record<string, string>): Date | undefined {
   const value = query[key];
   if (value === undefined || value === '') return undefined;
   // A bare date means that day from 00:00 UTC.
-  const instant = typeof value === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(value) ? normalizeInstant(`${value}T00:00Z`) : normalizeInstant(value);
-  if (instant === null) {
-    details[key] = `${key} must be an ISO 8601 UTC instant or date, e.g. 1931-03-02T00:00Z`;
+  const reading = readInstant(value, { allowDate: true });
+  if (!reading.ok) {
+    details[key] = `${key} ${reading.problem}, or a date such as 1931-03-02`;
     return undefined;
   }
-  return new Date(instant);
+  return new Date(reading.ms);
 }
 
 /** The catalogue filters of GET /api/scans and /api/scans/status-counts. */
@@ -86,8 +85,8 @@ export function parseScanFilter(query: Record<string, unknown>): ScanFilter {
   filter.instrumentId = readId(query, 'instrumentId', details);
   filter.chartFormId = readId(query, 'chartFormId', details);
   filter.batchId = readId(query, 'batchId', details);
-  filter.from = readInstant(query, 'from', details);
-  filter.to = readInstant(query, 'to', details);
+  filter.from = readFilterInstant(query, 'from', details);
+  filter.to = readFilterInstant(query, 'to', details);
   if (filter.from && filter.to && filter.to < filter.from) details['to'] = 'to must not be before from';
   const tag = query['tag'];
   if (tag !== undefined) {

@@ -224,18 +224,33 @@ export async function findScanIdsNeedingDerivatives(db: DbOrTrx): Promise<string
   return rows.map((row) => row.id);
 }
 
-/** What the hand-in needs of a scan, locked against a concurrent status change when run in a transaction. */
-export async function findScanForTracing(
-  db: DbOrTrx,
-  scanId: string,
-): Promise<{ id: string; stationId: string | null; chartFormId: string | null; chartStart: Date | null; status: ScanStatus } | undefined> {
-  const row = await db
+/** What tracing needs of a scan: its state, catalogue fields and chart span. */
+export interface ScanForTracing {
+  id: string;
+  status: ScanStatus;
+  stationId: string | null;
+  chartFormId: string | null;
+  chartStart: Date | null;
+  chartOn: Date | null;
+  chartOff: Date | null;
+}
+
+/** The scan as tracing needs it; `forUpdate` locks it against a concurrent status change in a transaction. */
+export async function findScanForTracing(db: DbOrTrx, scanId: string, { forUpdate }: { forUpdate: boolean }): Promise<ScanForTracing | undefined> {
+  const query = db
     .selectFrom('scan')
-    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'status'])
-    .where('id', '=', scanId)
-    .forUpdate()
-    .executeTakeFirst();
+    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'chart_on', 'chart_off', 'status'])
+    .where('id', '=', scanId);
+  const row = await (forUpdate ? query.forUpdate() : query).executeTakeFirst();
   return row
-    ? { id: row.id, stationId: row.station_id, chartFormId: row.chart_form_id, chartStart: row.chart_start, status: row.status }
+    ? {
+        id: row.id,
+        status: row.status,
+        stationId: row.station_id,
+        chartFormId: row.chart_form_id,
+        chartStart: row.chart_start,
+        chartOn: row.chart_on,
+        chartOff: row.chart_off,
+      }
     : undefined;
 }

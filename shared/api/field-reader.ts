@@ -1,7 +1,7 @@
-/** An ISO 8601 instant with a zone (Z or ±hh:mm); seconds and fraction optional. Local times are refused. */
-const INSTANT_PATTERN = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d{1,9})?)?(Z|[+-]\d{2}:\d{2})$/;
-const DATE_PATTERN = /^\d{4}-\d{2}-\d{2}$/;
-const UUID_PATTERN = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+import { isCalendarDate, isId, readInstant } from './parse-instant';
+
+// The readers of instants, days and ids live in parse-instant.ts; these names stay for the parsers that import them here.
+export { isCalendarDate, isId, normalizeInstant } from './parse-instant';
 
 /** Result of a shared body parser: the value, or field problems keyed by field name. */
 export type Parsed<T> = { ok: true; value: T } | { ok: false; details: Record<string, string> };
@@ -10,24 +10,6 @@ export type Parsed<T> = { ok: true; value: T } | { ok: false; details: Record<st
 export const MAX_TEXT_LENGTH = 20_000;
 /** Longest one-line field (names, codes, references), characters. */
 export const MAX_LINE_LENGTH = 300;
-
-/** ISO 8601 UTC string of an instant with a zone, or null when it is not one. */
-export function normalizeInstant(value: unknown): string | null {
-  if (typeof value !== 'string' || !INSTANT_PATTERN.test(value)) return null;
-  const ms = Date.parse(value);
-  return Number.isNaN(ms) ? null : new Date(ms).toISOString();
-}
-
-/** True for a real calendar date YYYY-MM-DD (2026-02-30 is not). */
-export function isCalendarDate(value: unknown): value is string {
-  if (typeof value !== 'string' || !DATE_PATTERN.test(value)) return false;
-  const ms = Date.parse(`${value}T00:00:00Z`);
-  return !Number.isNaN(ms) && new Date(ms).toISOString().slice(0, 10) === value;
-}
-
-export function isId(value: unknown): value is string {
-  return typeof value === 'string' && UUID_PATTERN.test(value);
-}
 
 /**
  * Reads the fields of a JSON body one by one, collecting every problem in `details`.
@@ -98,13 +80,13 @@ export class FieldReader {
     return value;
   }
 
-  /** An ISO 8601 instant with a zone, normalised to UTC, or null. */
+  /** An instant (see readInstant), normalised to an ISO 8601 UTC string, or null. */
   nullableInstant(key: string): string | null | undefined {
     const value = this.record[key];
     if (value === undefined || value === null) return value as undefined | null;
-    const instant = normalizeInstant(value);
-    if (instant === null) return this.fail(key, `${key} must be an ISO 8601 UTC instant, e.g. 1931-03-02T08:00Z, or null`);
-    return instant;
+    const reading = readInstant(value);
+    if (!reading.ok) return this.fail(key, `${key} ${reading.problem}, or null`);
+    return new Date(reading.ms).toISOString();
   }
 
   nullableId(key: string): string | null | undefined {

@@ -1,4 +1,5 @@
 import { FEWEST_PINS } from '../domain/registration-model';
+import { readInstant } from './parse-instant';
 import type { SeriesFlag } from './series';
 
 /** A pin as the volunteer types it: a pixel on the scan and the printed time and pressure there. */
@@ -66,10 +67,10 @@ export function readPins(raw: unknown, details: Record<string, string>): PinInpu
       if (!isFiniteNumber(p['xPx'])) details[`pins.${i}.xPx`] = 'xPx must be a number';
       if (!isFiniteNumber(p['yPx'])) details[`pins.${i}.yPx`] = 'yPx must be a number';
       if (!isFiniteNumber(p['pressure'])) details[`pins.${i}.pressure`] = 'pressure must be a number';
-      if (typeof p['time'] !== 'string' || Number.isNaN(Date.parse(p['time']))) {
-        details[`pins.${i}.time`] = 'time must be an ISO 8601 instant';
-      }
-      pins.push({ xPx: p['xPx'] as number, yPx: p['yPx'] as number, time: p['time'] as string, pressure: p['pressure'] as number });
+      const time = readInstant(p['time']);
+      if (!time.ok) details[`pins.${i}.time`] = `time ${time.problem}`;
+      const utcTime = time.ok ? new Date(time.ms).toISOString() : '';
+      pins.push({ xPx: p['xPx'] as number, yPx: p['yPx'] as number, time: utcTime, pressure: p['pressure'] as number });
     });
   }
   return pins;

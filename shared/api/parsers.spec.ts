@@ -59,7 +59,8 @@ describe('shared body parsers', () => {
 
   it.each([
     ['a zoned chart start', { version: 1, chartStart: '1931-03-02T08:00+01:00' }, []],
-    ['a local time without a zone', { version: 1, chartStart: '1931-03-02T08:00' }, ['chartStart']],
+    ['a time without a zone (read as UTC)', { version: 1, chartStart: '1931-03-02 08:00' }, []],
+    ['a date written day first', { version: 1, chartStart: '02.03.1931 08:00' }, ['chartStart']],
     ['chart off before chart on', { version: 1, chartOn: '1931-03-09T08:00Z', chartOff: '1931-03-02T08:00Z' }, ['chartOff']],
     ['a zero dpi', { version: 1, dpi: 0 }, ['dpi']],
     ['no version', { observer: 'A. Q.' }, ['version']],

@@ -11,7 +11,7 @@ import {
 import { convertPressure } from './pressure-units';
 
 describe('nwsPressureAltitudeFt', () => {
-  // NWS WFO El Paso wxcalc "Pressure Altitude": 145 366.45·[1 − (p/1013.25)^0.190284]; values derived (REFERENCES.md §3 [D]).
+  // NWS WFO El Paso wxcalc "Pressure Altitude": 145 366.45·[1 − (p/1013.25)^0.190284]; values derived (docs/references.md §3 [D]).
   it.each<[number, number]>([
     [1013.25, 0],
     [1000, 363.6],
@@ -38,7 +38,7 @@ describe('nwsPressureAltitudeFt', () => {
 
 describe('altimeterSettingHpa and its inverse', () => {
   // NWS wxcalc "Altimeter Setting" (Smithsonian Meteorological Tables, List 1951, p. 269, eqs 1 and 3), n = 0.190284.
-  // Values derived with n = 0.190284 (REFERENCES.md §3 [D]); MetPy's test values (n = 0.190260) within 0.03 hPa.
+  // Values derived with n = 0.190284 (docs/references.md §3 [D]); MetPy's test values (n = 0.190260) within 0.03 hPa.
   it.each<[number, number, number, number]>([
     [1000, 2000, 784.287, 784.263],
     [1010, 1000, 896.052, 896.038],
@@ -71,7 +71,7 @@ describe('altimeterSettingHpa and its inverse', () => {
 
 describe('awos and asos altimeter settings', () => {
   // FAA AWOS formula AS = (Pa^N + K·Ha)^(1/N), N = 0.1903, K = 1.313e-5, as quoted with its worked examples by
-  // J. Denker, av8n.com/physics/barometry.html, ±2 Pa (REFERENCES.md §3); inHg = 3386.389 Pa (NIST SP 811 B.8).
+  // J. Denker, av8n.com/physics/barometry.html, ±2 Pa (docs/references.md §3); inHg = 3386.389 Pa (NIST SP 811 B.8).
   it.each<[string, number, number, number]>([
     ['Prescott (KPRC)', 5045, 30.2, 84977],
     ['Flagstaff (KFLG)', 7014, 30.37, 79375],

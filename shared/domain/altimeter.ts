@@ -1,5 +1,5 @@
 /**
- * U.S. weather-service pressure altitude and altimeter setting formulas (REFERENCES.md §3). These follow the
+ * U.S. weather-service pressure altitude and altimeter setting formulas (docs/references.md §3). These follow the
  * published constants exactly (n = 0.190284, T0 = 288 K), so they differ slightly from the ISO atmosphere.
  */
 

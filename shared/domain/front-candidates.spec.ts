@@ -21,7 +21,7 @@ function series(knots: [number, number][], stepMinutes = 60): PressureAtTime[] {
 
 describe('findFrontCandidates', () => {
   it('when pressure falls 8 hPa to a minimum at 12 h and then rises 1.5 hPa/h, then one front candidate is suggested there', () => {
-    // Frontal signature: falls ahead of the front, rises after it, front in the trough (REFERENCES.md §5: GMU CLIM 301; LibreTexts).
+    // Frontal signature: falls ahead of the front, rises after it, front in the trough (docs/references.md §5: GMU CLIM 301; LibreTexts).
     const points = series([[0, 1010], [12, 1002], [18, 1011], [24, 1012]]);
 
     const candidates = findFrontCandidates(points).filter((c) => c.kind === 'front');
@@ -50,7 +50,7 @@ describe('findFrontCandidates', () => {
   });
 
   it('when a semidiurnal-sized wave of ±1 hPa is all there is, then nothing is suggested', () => {
-    // Tide amplitude ≈ 1 hPa at mid-latitudes (REFERENCES.md §5, from memory).
+    // Tide amplitude ≈ 1 hPa at mid-latitudes (docs/references.md §5, from memory).
     const points = series(Array.from({ length: 49 }, (_, h) => [h, 1012 + Math.cos((2 * Math.PI * h) / 12)] as [number, number]));
 
     const candidates = findFrontCandidates(points);
@@ -59,7 +59,7 @@ describe('findFrontCandidates', () => {
   });
 
   it('when 10-minute points show a 3 hPa rise in 30 minutes, then one pressure jump is suggested at its foot', () => {
-    // PRESRR: rising ≥ 0.06 inHg (≈ 2.0 hPa) per hour (AFMAN 15-111; NWS glossary; REFERENCES.md §5).
+    // PRESRR: rising ≥ 0.06 inHg (≈ 2.0 hPa) per hour (AFMAN 15-111; NWS glossary; docs/references.md §5).
     const points = series([[0, 1005], [5, 1004.5], [5.5, 1007.5], [8, 1007.6]], 10);
 
     const jumps = findFrontCandidates(points).filter((c) => c.kind === 'pressure_jump');

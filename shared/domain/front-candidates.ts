@@ -30,13 +30,13 @@ export interface FrontCandidateOptions {
   minDepthHpa?: number;
   /** Span of the sustained rise after the minimum (default 3 h). */
   riseHours?: number;
-  /** Least rise over riseHours (default 1.6 hPa: "rising" in the Met Office 3-hour terms, REFERENCES.md §5). */
+  /** Least rise over riseHours (default 1.6 hPa: "rising" in the Met Office 3-hour terms, docs/references.md §5). */
   minRiseHpa?: number;
   /** Largest dip allowed inside a sustained rise (default 0.2 hPa, our choice). */
   maxDipHpa?: number;
   /** Jump window (default 60 min). */
   jumpMinutes?: number;
-  /** Least rise rate for a jump (default 2.0 hPa/h ≈ 0.06 inHg/h, the PRESRR threshold, REFERENCES.md §5). */
+  /** Least rise rate for a jump (default 2.0 hPa/h ≈ 0.06 inHg/h, the PRESRR threshold, docs/references.md §5). */
   jumpRateHpaPerHour?: number;
   /** Samples further apart than this break the series (default 90 min). */
   maxGapMinutes?: number;

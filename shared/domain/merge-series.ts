@@ -29,7 +29,7 @@ export interface MergeOptions {
  */
 export function mergeChartSeries(series: ChartSeries[], options: MergeOptions = {}): MergedPoint[] {
   const coverageFactor = options.coverageFactor ?? 1;
-  // ~0.5 hPa: REFERENCES.md §6 puts a digitized barogram at ±0.5–1 hPa absolute (from memory there).
+  // ~0.5 hPa: docs/references.md §6 puts a digitized barogram at ±0.5–1 hPa absolute (from memory there).
   const defaultUncertaintyHpa = options.defaultUncertaintyHpa ?? 0.5;
   const byTime = new Map<number, { chart: ChartSeries; point: RegularPoint }[]>();
   for (const chart of series) {

@@ -22,7 +22,7 @@ describe('pressureChange', () => {
   });
 
   it('when a fall of 1.6 hPa in 3 h is measured, then it reads as "falling" in the Met Office 3-hour terms', () => {
-    // UK Met Office Shipping Forecast terms, 1.6–3.5 hPa in 3 h is "falling" (REFERENCES.md §5).
+    // UK Met Office Shipping Forecast terms, 1.6–3.5 hPa in 3 h is "falling" (docs/references.md §5).
     const change = pressureChange(hourly([1012.0, 1011.4, 1011.0, 1010.4]), t0, t0 + 3 * hourMs);
 
     expect(Math.abs(change?.changeHpa ?? 0)).toBeGreaterThanOrEqual(1.6 - 1e-9);

@@ -13,7 +13,7 @@ function curve(start: number, middle: number, end: number): PressureAtTime[] {
 }
 
 describe('threeHourTendency characteristic', () => {
-  // WMO-No. 306, Manual on Codes, Vol. I.1, code table 0200 (REFERENCES.md §5), one case per code and per wording.
+  // WMO-No. 306, Manual on Codes, Vol. I.1, code table 0200 (docs/references.md §5), one case per code and per wording.
   it.each<[TendencyCharacteristic, string, number, number, number]>([
     [0, 'increasing, then decreasing; now higher', 1010, 1012, 1010.5],
     [0, 'increasing, then decreasing; now the same', 1010, 1011, 1010],
@@ -41,7 +41,7 @@ describe('threeHourTendency characteristic', () => {
 
 describe('threeHourTendency amount', () => {
   it('when pressure falls 1012.0 → 1011.0 → 1010.4 hPa, then a = 6, ppp = 016 and the group is 56016', () => {
-    // REFERENCES.md §5: constructed example (our construction, from code table 0200 and the ppp definition).
+    // docs/references.md §5: constructed example (our construction, from code table 0200 and the ppp definition).
     const tendency = threeHourTendency(curve(1012, 1011, 1010.4), observation);
 
     expect(tendency).toMatchObject({ characteristic: 6, ppp: 16, group: '56016' });
@@ -49,7 +49,7 @@ describe('threeHourTendency amount', () => {
   });
 
   it('when pressure falls 0.3 hPa steadily, then the group is 57003', () => {
-    // Unidata GEMPAK P03D note: a = 7 with a fall of 0.3 hPa is coded 7003 (REFERENCES.md §5).
+    // Unidata GEMPAK P03D note: a = 7 with a fall of 0.3 hPa is coded 7003 (docs/references.md §5).
     const tendency = threeHourTendency(curve(1010.3, 1010.15, 1010.0), observation);
 
     expect(tendency?.group).toBe('57003');

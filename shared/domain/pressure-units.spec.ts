@@ -14,7 +14,7 @@ describe('convertPressure', () => {
     expect(hpa * 100).toBeCloseTo(pascals, digits);
   });
 
-  // Check values derived from the NIST SP 811 B.8 factors (REFERENCES.md §2, [D]).
+  // Check values derived from the NIST SP 811 B.8 factors (docs/references.md §2, [D]).
   it.each<[number, PressureUnit, PressureUnit, number, number]>([
     [1013.25, 'hPa', 'inHg', 29.9213, 4],
     [1013.25, 'hPa', 'mmHg', 759.9999, 4],

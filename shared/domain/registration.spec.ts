@@ -73,7 +73,7 @@ describe('fitRegistration', () => {
     expect(chooseRegistrationModel(count)).toBe(expected);
   });
 
-  // Time lines are arcs whose radius is the pen-arm length (Handbook of Meteorology, 1921, pp. 223–225; REFERENCES.md §6);
+  // Time lines are arcs whose radius is the pen-arm length (Handbook of Meteorology, 1921, pp. 223–225; docs/references.md §6);
   // a point (u, v) lies on the arc whose foot is u₀ = u − s·(R − √(R² − (v − v_c)²)) (geometry of a circle).
   it('when pins come from 120 mm arcs, then the arc model fits them exactly and straight lines visibly do not', () => {
     const pins = makePins(weeklyForm, trueSkewedAffine, gridReadings);

@@ -2,7 +2,7 @@ import { meanColumnTemperatureK, reduceLowLevelStationHpa, reduceToSeaLevelHpa, 
 
 describe('reduceToSeaLevelHpa', () => {
   // WMO-No. 8 Part I Ch. 3: log10(p0/p) = Kp·Hp/Tmv, Tmv = Ts + a·Hp/2 + es·Ch, Kp = 0.0148275, a = 0.0065, Ch = 0.12.
-  // Check values derived from that formula (REFERENCES.md §4 [D]), printed to 0.01 hPa.
+  // Check values derived from that formula (docs/references.md §4 [D]), printed to 0.01 hPa.
   it.each<[number, number, number, number, number]>([
     [950.0, 500, 15, 10, 1007.4],
     [900.0, 1000, 5, 6, 1015.78],
@@ -14,7 +14,7 @@ describe('reduceToSeaLevelHpa', () => {
   });
 
   it('when the station is at 500 gpm, 15 °C with es = 10 hPa, then Tmv = 290.975 K', () => {
-    // WMO-No. 8 Part I Ch. 3 formula; value derived (REFERENCES.md §4 [D]).
+    // WMO-No. 8 Part I Ch. 3 formula; value derived (docs/references.md §4 [D]).
     const tmv = meanColumnTemperatureK(500, 15, 10);
 
     expect(tmv).toBeCloseTo(290.975, 9);
@@ -29,14 +29,14 @@ describe('reduceToSeaLevelHpa', () => {
 
 describe('reduceLowLevelStationHpa', () => {
   it('when p = 1010 hPa at 30 gpm with Tv = 290 K, then p0 = 1013.570 hPa', () => {
-    // WMO-No. 8 Part I Ch. 3 low-level formula p0 = p + p·Hp/(29.27·Tv); value derived (REFERENCES.md §4 [D]).
+    // WMO-No. 8 Part I Ch. 3 low-level formula p0 = p + p·Hp/(29.27·Tv); value derived (docs/references.md §4 [D]).
     const p0 = reduceLowLevelStationHpa(1010, 30, 290);
 
     expect(Math.abs(p0 - 1013.57)).toBeLessThanOrEqual(0.0005);
   });
 
   it('when the low-level and full WMO forms reduce the same dry 30 gpm station, then they agree within 0.01 hPa', () => {
-    // REFERENCES.md §4: at 30 m the low-level form gives 1013.570 and the exponential 1013.576 (derived).
+    // docs/references.md §4: at 30 m the low-level form gives 1013.570 and the exponential 1013.576 (derived).
     const low = reduceLowLevelStationHpa(1010, 30, 290);
     const full = reduceToSeaLevelHpa({ stationPressureHpa: 1010, elevationM: 30, temperatureC: 290 - 273.15 - 0.0065 * 15, vapourPressureHpa: 0 });
 

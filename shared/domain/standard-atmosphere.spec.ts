@@ -7,7 +7,7 @@ import {
   standardTemperatureK,
 } from './standard-atmosphere';
 
-// ISO 2533:1975 Table 5 rows (REFERENCES.md Table 1.1): H m′, h m, T K, p hPa, ρ kg m⁻³, and the size of one unit
+// ISO 2533:1975 Table 5 rows (docs/references.md Table 1.1): H m′, h m, T K, p hPa, ρ kg m⁻³, and the size of one unit
 // in the last printed digit of p and ρ (printed tables are rounded; allow ±1 in the last digit).
 const table5: [number, number, number, number, number, number, number][] = [
   [-500, -500, 291.4, 1074.78, 1.28489, 0.01, 0.00001],
@@ -42,7 +42,7 @@ describe('standard atmosphere', () => {
   });
 
   it.each<[number, number, number]>([
-    [11000, 22632.06, 0.05], // layer base, several reproductions of ISO 2533 (REFERENCES.md §1)
+    [11000, 22632.06, 0.05], // layer base, several reproductions of ISO 2533 (docs/references.md §1)
     [20000, 5474.889, 0.05],
     [32000, 868.02, 0.05],
     [47000, 110.91, 0.05],
@@ -53,7 +53,7 @@ describe('standard atmosphere', () => {
   });
 
   it.each<[number, number, number]>([
-    // ISO 2533 inverse formula H = (T0/L)·[1 − (p/P0)^0.1902632], derived (REFERENCES.md §1 [D]).
+    // ISO 2533 inverse formula H = (T0/L)·[1 − (p/P0)^0.1902632], derived (docs/references.md §1 [D]).
     [1000, 110.88, 0.005],
     [850, 1457.3, 0.05],
     [700, 3012.18, 0.005],

@@ -1,7 +1,7 @@
 /**
  * ISO 2533:1975 standard atmosphere (= ICAO Doc 7488/3; = U.S. Standard Atmosphere 1976 up to 32 km), from
  * −5 000 to 80 000 geopotential metres. Constants are the ISO ones, not CODATA, so that the printed tables come
- * out: R* = 8.31432 J mol⁻¹ K⁻¹, M = 0.0289644 kg mol⁻¹ (REFERENCES.md §1).
+ * out: R* = 8.31432 J mol⁻¹ K⁻¹, M = 0.0289644 kg mol⁻¹ (docs/references.md §1).
  */
 
 /** Sea-level standard pressure, Pa (ISO 2533). */

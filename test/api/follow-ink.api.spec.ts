@@ -1,6 +1,7 @@
 import request from 'supertest';
 import type { FollowInkResult } from '@shared/api/follow-ink';
 import { API } from '@shared/api/routes';
+import { INSTANT_EXAMPLE } from '@shared/api/parse-instant';
 import type { ScanDetail } from '@shared/api/scans';
 import { fitRegistration, pixelToReading } from '@shared/domain/registration';
 import { generateChart, type GeneratedChart } from '../../fixtures/generator/generate-chart';
@@ -113,7 +114,7 @@ describe('Follow ink', () => {
 
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe('validation_failed');
-    expect(response.body.error.details).toEqual({ 'pins.0.time': 'time must be an ISO 8601 instant', 'pins.1.pressure': 'pressure must be a number' });
+    expect(response.body.error.details).toEqual({ 'pins.0.time': `time must be a date and time, ${INSTANT_EXAMPLE}`, 'pins.1.pressure': 'pressure must be a number' });
   });
 
   it('when the pins all lie on one line, then it is 422 registration_failed', async () => {

@@ -65,12 +65,12 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
     const response = await get(IIIF.info(scanId));
 
     expect(response.status).toBe(200);
-    // IIIF Image 3.0 §5.1 (REFERENCES.md §7): media type application/ld+json with the image context profile.
+    // IIIF Image 3.0 §5.1 (docs/references.md §7): media type application/ld+json with the image context profile.
     expect(response.headers['content-type']).toMatch(/^application\/ld\+json;\s*profile="http:\/\/iiif\.io\/api\/image\/3\/context\.json"/);
-    // Level 1 requires cors (REFERENCES.md §7, compliance).
+    // Level 1 requires cors (docs/references.md §7, compliance).
     expect(response.headers['access-control-allow-origin']).toBe('*');
     const info = JSON.parse(response.text);
-    // Required: @context, id (base URI, no trailing slash), type, protocol, profile, width, height (REFERENCES.md §7).
+    // Required: @context, id (base URI, no trailing slash), type, protocol, profile, width, height (docs/references.md §7).
     expect(info['@context']).toBe('http://iiif.io/api/image/3/context.json');
     expect(info.id).toMatch(new RegExp(`^http://127\\.0\\.0\\.1:\\d+/iiif/3/${scanId}$`));
     expect(info.type).toBe('ImageService3');
@@ -88,7 +88,7 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
   it('when the base URI is opened, then it answers 303 to info.json', async () => {
     const response = await get(IIIF.imageBase(scanId)).redirects(0);
 
-    // §3: dereferencing the base URI SHOULD give the info document, RECOMMENDED by 303 (REFERENCES.md §7).
+    // §3: dereferencing the base URI SHOULD give the info document, RECOMMENDED by 303 (docs/references.md §7).
     expect(response.status).toBe(303);
     expect(response.headers['location']).toBe(IIIF.info(scanId));
   });
@@ -104,7 +104,7 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
   });
 
   it.each([
-    // IIIF Image 3.0 §4.1 region and §4.2 size forms (REFERENCES.md §7), on a 1300 × 700 image.
+    // IIIF Image 3.0 §4.1 region and §4.2 size forms (docs/references.md §7), on a 1300 × 700 image.
     ['full', 'max', 1300, 700],
     ['square', 'max', 700, 700],
     ['100,50,400,200', 'max', 400, 200],
@@ -174,7 +174,7 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
     expect(response.status).toBe(200);
     expect(response.headers['content-type']).toMatch(/^application\/ld\+json;\s*profile="http:\/\/iiif\.io\/api\/presentation\/3\/context\.json"/);
     const manifest = JSON.parse(response.text);
-    // Top resource: @context, id, type, label language map, items with ≥1 Canvas (REFERENCES.md §7, Presentation 3.0).
+    // Top resource: @context, id, type, label language map, items with ≥1 Canvas (docs/references.md §7, Presentation 3.0).
     expect(manifest['@context']).toBe('http://iiif.io/api/presentation/3/context.json');
     expect(manifest.type).toBe('Manifest');
     expect(manifest.id).toMatch(new RegExp(`/iiif/3/${scanId}/manifest$`));

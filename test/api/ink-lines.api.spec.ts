@@ -162,7 +162,18 @@ describe('handing in an ink line', () => {
     expect(response.body.error.code).toBe('scan_not_found');
   });
 
-  it('when the scan was withdrawn, then it answers 409 conflict and stores nothing', async () => {
+  it('when the scan has no station, then the hand-in answers 409 scan_incomplete naming stationId and stores nothing', async () => {
+    await context.db.updateTable('scan').set({ station_id: null }).where('id', '=', scanId).execute();
+
+    const response = await handIn(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START));
+
+    expect(response.status).toBe(409);
+    expect(response.body.error.code).toBe('scan_incomplete');
+    expect(response.body.error.details).toEqual({ missing: ['stationId'] });
+    expect(await countRows('ink_line')).toBe(0);
+  });
+
+  it('when the scan was withdrawn, then it answers 409 scan_not_traceable and stores nothing', async () => {
     await context.db.updateTable('scan').set({ status: 'withdrawn' }).where('id', '=', scanId).execute();
 
     const response = await handIn(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START));

@@ -140,7 +140,7 @@ describe('scan upload', () => {
   });
 
   it('when fields are missing or malformed, then it answers 400 validation_failed naming each field', async () => {
-    const response = await upload(await makePng(), 'chart.png', { stationId: 'not-an-id', chartStart: '2026-03-02 00:00' });
+    const response = await upload(await makePng(), 'chart.png', { stationId: 'not-an-id', chartStart: '2/3/2026 00:00' });
 
     expect(response.status).toBe(400);
     expect(response.body.error.code).toBe('validation_failed');

@@ -140,11 +140,11 @@ describe('station series and CSV export', () => {
     expect(Object.keys(response.body.error.details).sort()).toEqual(['from', 'stationId', 'to']);
   });
 
-  it('when an instant has no zone, then it is refused rather than read as local time', async () => {
-    const response = await getCsv({ stationId, from: '2026-03-02T00:00:00', to: '2026-03-03' });
+  it('when an instant can be read with day and month either way round, then it is refused saying so', async () => {
+    const response = await getCsv({ stationId, from: '02/03/2026 00:00', to: '2026-03-03' });
 
     expect(response.status).toBe(400);
-    expect(response.body.error.details).toHaveProperty('from');
+    expect(response.body.error.details.from).toMatch(/day and month either way round/);
   });
 
   it('when the station does not exist, then it answers 404 station_not_found', async () => {

@@ -1,6 +1,6 @@
 import type { ChartMark, FrontNote, FrontNoteInput, FrontNoteKind } from '@shared/api/lessons';
 
-import { parseUtcInstant } from '../shared/utc-instant/parse-utc-instant';
+import { normalizeInstant } from '@shared/api/parse-instant';
 import { toMinuteIso } from './lesson-text';
 
 /** A front note while it is edited: times as typed (ISO 8601 with Z), an empty end for a note at one time. */
@@ -37,8 +37,8 @@ export function inputOf(note: FrontNote): FrontNoteInput {
 /** The draft as the API takes it, or the problems of its times keyed by field. */
 export function readDraft(draft: NoteDraft): { input: FrontNoteInput } | { problems: Record<string, string> } {
   const problems: Record<string, string> = {};
-  const time = parseUtcInstant(draft.time);
-  const endTime = draft.endTime.trim() === '' ? null : parseUtcInstant(draft.endTime);
+  const time = normalizeInstant(draft.time);
+  const endTime = draft.endTime.trim() === '' ? null : normalizeInstant(draft.endTime);
   if (time === null) problems['time'] = 'ISO 8601 with Z, e.g. 2026-03-03T16:00Z';
   if (draft.endTime.trim() !== '' && endTime === null) problems['endTime'] = 'ISO 8601 with Z, or empty for a note at one time';
   if (time !== null && endTime !== null && Date.parse(endTime) < Date.parse(time)) problems['endTime'] = 'The end comes before the start.';

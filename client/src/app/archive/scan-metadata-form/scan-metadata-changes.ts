@@ -1,6 +1,6 @@
 import type { ScanDetail, ScanMetadataInput } from '@shared/api/scans';
 
-import { parseUtcInstant } from '../../shared/utc-instant/parse-utc-instant';
+import { normalizeInstant } from '@shared/api/parse-instant';
 
 /** The form's raw text values. */
 export interface ScanMetadataValues {
@@ -65,7 +65,7 @@ export function scanMetadataChanges(scan: ScanDetail, values: ScanMetadataValues
   const before = valuesOfScan(scan);
   const input: ScanMetadataInput = { version: scan.version };
   const idOrNull = (text: string) => (text === '' ? null : text);
-  const instantOrNull = (text: string) => (text.trim() === '' ? null : parseUtcInstant(text));
+  const instantOrNull = (text: string) => (text.trim() === '' ? null : normalizeInstant(text));
   if (values.stationId !== before.stationId) input.stationId = idOrNull(values.stationId);
   if (values.instrumentId !== before.instrumentId) input.instrumentId = idOrNull(values.instrumentId);
   if (values.chartFormId !== before.chartFormId) input.chartFormId = idOrNull(values.chartFormId);

@@ -14,11 +14,11 @@ import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ScansApi } from '../../core/api/scans-api';
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
-import { parseUtcInstant } from '../../shared/utc-instant/parse-utc-instant';
+import { normalizeInstant } from '@shared/api/parse-instant';
 import { scanMetadataChanges, valuesOfScan } from './scan-metadata-changes';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
-  return control.value.trim() === '' || parseUtcInstant(control.value) !== null ? null : { utcInstant: true };
+  return control.value.trim() === '' || normalizeInstant(control.value) !== null ? null : { utcInstant: true };
 }
 
 function dpiValidator(control: AbstractControl<string>): ValidationErrors | null {

@@ -7,11 +7,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import type { PressureUnit } from '@shared/domain/pressure-units';
 
-import { parseUtcInstant } from '../../shared/utc-instant/parse-utc-instant';
+import { normalizeInstant } from '@shared/api/parse-instant';
 import { BenchState } from '../bench-state';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
-  return control.value === '' || parseUtcInstant(control.value) !== null ? null : { utcInstant: true };
+  return control.value === '' || normalizeInstant(control.value) !== null ? null : { utcInstant: true };
 }
 
 /** The Pin step: type the time and pressure printed at the crossing just clicked; the pins so far, with delete. */
@@ -34,7 +34,7 @@ export class PinStep {
   });
 
   protected savePin(): void {
-    const time = parseUtcInstant(this.form.controls.time.value);
+    const time = normalizeInstant(this.form.controls.time.value);
     const pressure = Number(this.form.controls.pressure.value);
     if (this.form.invalid || time === null || !Number.isFinite(pressure)) {
       this.form.markAllAsTouched();

@@ -16,11 +16,11 @@ import { catchError, map, of } from 'rxjs';
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ScansApi } from '../../core/api/scans-api';
 import { StationsApi } from '../../core/api/stations-api';
-import { parseUtcInstant } from '../../shared/utc-instant/parse-utc-instant';
+import { normalizeInstant } from '@shared/api/parse-instant';
 import { outcomeOfFailure, type UploadOutcome } from './upload-outcome';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
-  return control.value === '' || parseUtcInstant(control.value) !== null ? null : { utcInstant: true };
+  return control.value === '' || normalizeInstant(control.value) !== null ? null : { utcInstant: true };
 }
 
 /** One scan at a time: the file, its station, chart form and chart-on time, with upload progress. */
@@ -59,7 +59,7 @@ export class UploadPanel {
 
   protected uploadScan(): void {
     const file = this.file();
-    const chartStart = parseUtcInstant(this.form.controls.chartStart.value);
+    const chartStart = normalizeInstant(this.form.controls.chartStart.value);
     if (this.form.invalid || file === null || chartStart === null) {
       this.form.markAllAsTouched();
       this.isFileMissing.set(file === null);

@@ -11,17 +11,17 @@ import { catchError, map, of } from 'rxjs';
 
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
-import { parseUtcInstant } from '../../shared/utc-instant/parse-utc-instant';
+import { normalizeInstant } from '@shared/api/parse-instant';
 import { LessonsApi } from '../lessons-api';
 
 function instantValidator(control: AbstractControl<string>): ValidationErrors | null {
-  return parseUtcInstant(control.value) === null ? { instant: true } : null;
+  return normalizeInstant(control.value) === null ? { instant: true } : null;
 }
 
 /** The passage's problem, if any: from must come before to, and the span is at most MAX_LESSON_DAYS. */
 export function passageProblem(from: string, to: string): string | null {
-  const fromIso = parseUtcInstant(from);
-  const toIso = parseUtcInstant(to);
+  const fromIso = normalizeInstant(from);
+  const toIso = normalizeInstant(to);
   if (fromIso === null || toIso === null) return null;
   const spanMs = Date.parse(toIso) - Date.parse(fromIso);
   if (spanMs <= 0) return 'The end comes before the start.';
@@ -77,7 +77,7 @@ export class NewLesson implements OnInit {
     this.isSaving.set(true);
     this.failure.set(null);
     this.lessonsApi
-      .create({ ...value, from: parseUtcInstant(value.from) as string, to: parseUtcInstant(value.to) as string })
+      .create({ ...value, from: normalizeInstant(value.from) as string, to: normalizeInstant(value.to) as string })
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
         next: (lesson) => void this.router.navigate(['/lessons', lesson.id]),
