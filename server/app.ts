@@ -2,7 +2,7 @@ import express, { type Express } from 'express';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps';
 import { authRoutes } from './auth/auth.routes';
-import { createAuthenticate } from './auth/authenticate';
+import { createAuthenticate, defaultStrategies } from './auth/authenticate';
 import { chartFormsRoutes } from './chart-forms/chart-forms.routes';
 import { errorHandler } from './errors/error-handler';
 import { apiNotFound } from './errors/not-found';
@@ -33,7 +33,7 @@ export function createApp(deps: AppDeps): Express {
   app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(securityHeaders());
 
-  const authenticate = createAuthenticate(deps.config.jwtSecret);
+  const authenticate = createAuthenticate(defaultStrategies(deps.db, deps.config.jwtSecret));
   app.use('/api/health', healthRoutes());
   // Before the app-wide JSON parser, which would refuse a long ink line.
   app.use('/api/scans', inkLinesRoutes(deps, authenticate));

@@ -21,19 +21,51 @@ async function findRolesByPersonIds(db: DbOrTrx, personIds: string[]): Promise<M
   return rolesById;
 }
 
+export interface PersonCredentials extends Person {
+  passwordHash: string;
+  sessionVersion: number;
+  isDisabled: boolean;
+}
+
 /** A person with the password hash, for sign-in only; e-mail matched case-insensitively. */
-export async function findPersonCredentialsByEmail(
-  db: DbOrTrx,
-  email: string,
-): Promise<(Person & { passwordHash: string }) | undefined> {
+export async function findPersonCredentialsByEmail(db: DbOrTrx, email: string): Promise<PersonCredentials | undefined> {
   const row = await db
     .selectFrom('person')
-    .select(['id', 'email', 'display_name', 'password_hash'])
+    .select(['id', 'email', 'display_name', 'password_hash', 'session_version', 'disabled_at'])
     .where(sql<string>`lower(email)`, '=', email.toLowerCase())
     .executeTakeFirst();
   if (!row) return undefined;
   const roles = (await findRolesByPersonIds(db, [row.id])).get(row.id) ?? [];
-  return { id: row.id, email: row.email, displayName: row.display_name, roles, passwordHash: row.password_hash };
+  return {
+    id: row.id,
+    email: row.email,
+    displayName: row.display_name,
+    roles,
+    passwordHash: row.password_hash,
+    sessionVersion: row.session_version,
+    isDisabled: row.disabled_at !== null,
+  };
+}
+
+/** What a request needs to know of its person: roles, session version and whether the account is disabled. One query. */
+export async function findSessionPerson(
+  db: DbOrTrx,
+  personId: string,
+): Promise<{ id: string; roles: Role[]; sessionVersion: number; isDisabled: boolean } | undefined> {
+  const row = await db
+    .selectFrom('person')
+    .select((eb) => [
+      'person.id',
+      'person.session_version',
+      'person.disabled_at',
+      eb
+        .fn<Role[]>('array', [eb.selectFrom('person_role').select('person_role.role').whereRef('person_role.person_id', '=', 'person.id').orderBy('person_role.role')])
+        .as('roles'),
+    ])
+    .where('person.id', '=', personId)
+    .executeTakeFirst();
+  if (!row) return undefined;
+  return { id: row.id, roles: row.roles, sessionVersion: row.session_version, isDisabled: row.disabled_at !== null };
 }
 
 export async function findPersonById(db: DbOrTrx, personId: string): Promise<Person | undefined> {

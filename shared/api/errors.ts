@@ -4,6 +4,10 @@ export type ApiErrorCode =
   | 'validation_failed'
   | 'unauthenticated'
   | 'token_expired'
+  /** A well-signed token whose session was ended (signed out everywhere, roles or password changed, account disabled or removed). */
+  | 'session_ended'
+  /** Sign-in with the right password to an account an admin has disabled. */
+  | 'account_disabled'
   | 'forbidden'
   | 'not_found'
   | 'scan_not_found'
