@@ -14,7 +14,10 @@ import { iiifRoutes } from './iiif/iiif.routes';
 import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
+import { createMailer } from './mail/mailer';
+import { capturedMailsRoutes } from './mail/captured-mails.routes';
 import { lessonsRoutes, noIndex, sharedLessonRoutes } from './lessons/lessons.routes';
+import { invitationsRoutes } from './people/invitations.routes';
 import { peopleRoutes } from './people/people.routes';
 import { scansRoutes } from './scans/scans.routes';
 import { seriesRoutes } from './series/series.routes';
@@ -26,7 +29,8 @@ export type { AppDeps } from './app-deps';
 export const JSON_BODY_LIMIT = '2mb';
 
 /** Builds the Express app from its dependencies. Never listens: server.ts (or supertest) does. */
-export function createApp(deps: AppDeps): Express {
+export function createApp(given: AppDeps): Express {
+  const deps = { ...given, mailer: given.mailer ?? createMailer(given.config) };
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -46,8 +50,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/scans', followInkRoutes(deps, authenticate));
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
+  app.use('/api/invitations', authenticate, invitationsRoutes(deps));
   app.use('/api/lessons', authenticate, lessonsRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
+  app.use('/api/dev/mails', authenticate, capturedMailsRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));
   app.use('/api', apiNotFound);
   app.use('/iiif', iiifRoutes(deps, authenticate));

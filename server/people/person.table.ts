@@ -12,6 +12,8 @@ export interface PersonTable {
   /** Set while the account is disabled: no sign-in, no session. */
   disabled_at: Date | null;
   updated_at: Generated<Date>;
+  /** Optimistic version of what an admin edits (roles, enabled state). */
+  version: Generated<number>;
 }
 
 export interface PersonRoleTable {

@@ -27,7 +27,23 @@ export type ApiErrorCode =
   | 'lesson_not_found'
   /** A share link that does not exist, has expired or was revoked (the three are not told apart). */
   | 'share_link_not_found'
+  /** An invitation (or an account) for an address that already has an account. */
+  | 'email_taken'
+  /** A second invitation for an address whose invitation is still open. */
+  | 'invitation_open'
+  /** Resend or withdraw of an invitation already accepted or withdrawn. */
+  | 'invitation_closed'
+  | 'invitation_not_found'
+  /** An invitation link that was used, withdrawn, replaced or has expired (not told apart). */
+  | 'invitation_link_not_found'
+  /** A password reset link that was used, replaced or has expired (not told apart). */
+  | 'reset_link_not_found'
+  | 'person_not_found'
+  /** A change that would leave no enabled admin. */
+  | 'last_admin'
   | 'rate_limited'
+  /** No mail server is set up, or it refused the mail. */
+  | 'mail_unavailable'
   | 'version_conflict'
   | 'conflict'
   | 'internal_error';
