@@ -77,22 +77,22 @@ export async function signOutEverywhere(db: Db, personId: string): Promise<void>
 }
 
 /**
- * Mails a reset link when the address has an enabled account; says nothing either way, so the answer
- * cannot tell anyone whether an address has an account. Mail failures are logged by the caller's logger
- * only through the thrown error when the address is known — so they are swallowed here for the same reason.
+ * Mails a reset link when the address has an enabled account, and says nothing either way, so the answer
+ * cannot tell anyone whether an address has an account. Runs after the answer has gone: failures go to
+ * `onFailure` (the log), never to the caller.
  */
-export async function requestPasswordReset(deps: AccountDeps, email: string, onMailFailure: (error: unknown) => void): Promise<void> {
-  const person = await peopleRepository.findPersonCredentialsByEmail(deps.db, email.trim());
-  if (!person || person.isDisabled) return;
-  const { token, tokenHash } = newLinkSecret();
-  const expiresAt = new Date(Date.now() + PASSWORD_RESET_TTL_SECONDS * 1000);
+export async function requestPasswordReset(deps: AccountDeps, email: string, onFailure: (error: unknown) => void): Promise<void> {
   try {
+    const person = await peopleRepository.findPersonCredentialsByEmail(deps.db, email.trim());
+    if (!person || person.isDisabled) return;
+    const { token, tokenHash } = newLinkSecret();
+    const expiresAt = new Date(Date.now() + PASSWORD_RESET_TTL_SECONDS * 1000);
     await deps.db.transaction().execute(async (trx) => {
       await passwordResets.insertPasswordReset(trx, { personId: person.id, tokenHash, expiresAt });
       await deps.mailer.send(passwordResetMail({ to: person.email, link: publicLink(deps.config, PAGES.passwordReset(token)), expiresAt }));
     });
   } catch (error) {
-    onMailFailure(error);
+    onFailure(error);
   }
 }
 

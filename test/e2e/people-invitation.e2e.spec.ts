@@ -54,7 +54,7 @@ describe('inviting a person', () => {
     const [mail] = await waitForMailsTo(email);
     const link = /https?:\/\/\S+\/invitation\/[A-Za-z0-9_-]+/.exec(mail!.text)?.[0];
     expect(link?.startsWith(server.url)).toBe(true);
-    const invitee = await (await chromium.browser.newContext()).newPage({ viewport: { width: 1280, height: 900 } });
+    const invitee = await (await chromium.browser.newContext({ viewport: { width: 1280, height: 900 } })).newPage();
     await invitee.goto(link!);
     await invitee.getByTestId('invitation-email').filter({ hasText: email }).waitFor();
     await invitee.getByTestId('invitation-name').fill('Tamsin Oakhurst');
