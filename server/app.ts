@@ -9,7 +9,9 @@ import { apiNotFound } from './errors/not-found';
 import { followInkRoutes } from './follow-ink/follow-ink.routes';
 import { healthRoutes } from './health/health.routes';
 import { clientStatic } from './http/client-static';
+import { refuseNul } from './http/refuse-nul';
 import { securityHeaders } from './http/security';
+import { strictQuery } from './http/strict-query';
 import { iiifRoutes } from './iiif/iiif.routes';
 import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
@@ -35,13 +37,15 @@ export function createApp(given: AppDeps): Express {
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
-  app.use(securityHeaders());
+  app.use(securityHeaders({ behindTls: deps.config.behindTls }));
 
   const authenticate = createAuthenticate(defaultStrategies(deps.db, deps.config.jwtSecret));
+  app.use(['/api', '/iiif'], strictQuery);
   app.use('/api/health', healthRoutes());
   // Before the app-wide JSON parser, which would refuse a long ink line.
   app.use('/api/scans', inkLinesRoutes(deps, authenticate));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.use(refuseNul);
   app.use('/api/auth', authRoutes(deps, authenticate));
   app.use('/api/stations', authenticate, stationsRoutes(deps));
   app.use('/api/instruments', authenticate, instrumentsRoutes(deps));

@@ -69,9 +69,6 @@ function readVersion(query: Record<string, unknown>): number {
   return version;
 }
 
-function originOf(req: Request): string {
-  return `${req.protocol}://${req.get('host')}`;
-}
 
 /** Sends a region's JPEG through the server's IIIF image code (cached and tiled as any IIIF answer). */
 async function sendRegionImage(db: Db, storage: Storage, res: Response, image: RegionImage, cacheControl: string): Promise<void> {
@@ -86,7 +83,7 @@ async function sendRegionImage(db: Db, storage: Storage, res: Response, image: R
 }
 
 /** Mounted at /api/lessons behind authenticate: teachers build lessons, admins may change any. */
-export function lessonsRoutes({ db, storage }: AppDeps): Router {
+export function lessonsRoutes({ db, storage, config }: AppDeps): Router {
   const router = Router();
   router.use(requireRoles('teacher', 'admin'));
 
@@ -120,7 +117,7 @@ export function lessonsRoutes({ db, storage }: AppDeps): Router {
   });
   router.get('/:lessonId/annotations', async (req, res) => {
     const lesson = await lessonsService.getLesson(db, caller(req), lessonId(req.params.lessonId));
-    const collection = buildAnnotationCollection(originOf(req), lesson);
+    const collection = buildAnnotationCollection(config.publicUrl, lesson);
     res.set({ 'Content-Type': ANNOTATION_MEDIA_TYPE, 'Content-Disposition': 'attachment; filename="lesson-annotations.jsonld"' });
     res.send(Buffer.from(JSON.stringify(collection), 'utf8'));
   });
