@@ -22,6 +22,11 @@ import * as renameScanChartStart from './2026_12_03_0600_rename_scan_chart_start
 import * as createSeriesChange from './2026_12_03_0610_create_series_change';
 import * as createLesson from './2026_12_03_1200_create_lesson';
 import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
+import * as addPersonSessionVersion from './2026_12_04_1300_add_person_session_version';
+import * as addPersonVersion from './2026_12_04_1310_add_person_version';
+import * as createInvitation from './2026_12_04_1320_create_invitation';
+import * as createPasswordReset from './2026_12_04_1330_create_password_reset';
+import * as createPeopleChange from './2026_12_04_1340_create_people_change';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -52,4 +57,9 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_03_0610_create_series_change': createSeriesChange,
   '2026_12_03_1200_create_lesson': createLesson,
   '2026_12_03_1210_create_lesson_share': createLessonShare,
+  '2026_12_04_1300_add_person_session_version': addPersonSessionVersion,
+  '2026_12_04_1310_add_person_version': addPersonVersion,
+  '2026_12_04_1320_create_invitation': createInvitation,
+  '2026_12_04_1330_create_password_reset': createPasswordReset,
+  '2026_12_04_1340_create_people_change': createPeopleChange,
 };

@@ -13,6 +13,7 @@ import { startServer, type RunningServer } from '../server/server';
 import { DEMO_PASSWORD, DEMO_PEOPLE } from '../server/demo/demo-scenario';
 import { ensureClientBuild } from './lib/client-build';
 import { LocalPostgres } from './lib/local-postgres';
+import { startMailFake, type RunningMailFake } from './lib/mail-fake';
 
 const ROOT = resolve(__dirname, '..');
 const DATA_DIR = join(ROOT, '.data');
@@ -59,6 +60,7 @@ async function main(): Promise<void> {
   const postgres = userDatabaseUrl ? null : new LocalPostgres(join(DATA_DIR, 'postgres'), POSTGRES_PORT);
   let server: RunningServer | null = null;
   let worker: ChildProcess | null = null;
+  let mailFake: RunningMailFake | null = null;
   let isStopping = false;
   const stop = async (code: number) => {
     if (isStopping) return;
@@ -66,6 +68,7 @@ async function main(): Promise<void> {
     console.log('\nStopping Isallo…');
     await stopWorker(worker);
     await server?.close().catch((error: unknown) => console.error(error));
+    await mailFake?.stop();
     await postgres?.stop();
     process.exit(code);
   };
@@ -79,6 +82,8 @@ async function main(): Promise<void> {
       await postgres.ensureDatabase('isallo');
     }
     const clientDir = await ensureClientBuild(ROOT);
+    // Without a real mail server (SMTP_URL), mail goes to a local fake whose catch the admin reads in the app.
+    if (!process.env['SMTP_URL']) mailFake = await startMailFake(join(DATA_DIR, 'mail'));
     const env = {
       ...process.env,
       DATABASE_URL: userDatabaseUrl ?? postgres!.url('isallo'),
@@ -88,6 +93,7 @@ async function main(): Promise<void> {
       STORAGE_DIR: process.env['STORAGE_DIR'] ?? join(DATA_DIR, 'storage'),
       CLIENT_DIR: clientDir,
       LOG_LEVEL: process.env['LOG_LEVEL'] ?? 'warn',
+      ...(mailFake ? { SMTP_URL: mailFake.url, MAIL_CAPTURE_DIR: join(DATA_DIR, 'mail') } : {}),
     };
     const config = loadConfig(env);
     // The server migrates and seeds (queuing the demo scans' derivative jobs) before the worker starts taking them.
@@ -102,6 +108,7 @@ async function main(): Promise<void> {
   console.log(`\nIsallo is running at ${server.url}\n`);
   console.log(`Demo sign-ins (password "${DEMO_PASSWORD}" for each):`);
   for (const person of DEMO_PEOPLE) console.log(`  ${person.email.padEnd(28)} ${person.roles.join(', ')}`);
+  if (mailFake) console.log(`\nMail goes to a local fake (${mailFake.url}); an admin reads it at ${server.url}/people/mails.`);
   console.log('\nThe derivatives worker (thumbnails, previews, IIIF tiles) runs beside the server.');
   console.log('Press Ctrl-C to stop the server, the worker and the database.');
 }

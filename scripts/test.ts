@@ -11,6 +11,7 @@ import { ensureChromium } from './lib/chromium';
 import { ensureClientBuild } from './lib/client-build';
 import { findFreePort } from './lib/free-port';
 import { LocalPostgres } from './lib/local-postgres';
+import { startMailFake, type RunningMailFake } from './lib/mail-fake';
 import { runCommand } from './lib/run-command';
 
 const ROOT = resolve(__dirname, '..');
@@ -72,8 +73,10 @@ async function main(): Promise<number> {
   // Ctrl-C reaches every process of the group and wrappers pass it on again, so a signal can arrive twice:
   // keep the handlers (a second signal would otherwise kill us mid-cleanup) and clean up once.
   let cleanup: Promise<void> | undefined;
+  let mailFake: RunningMailFake | undefined;
   const stopAll = () =>
     (cleanup ??= (async () => {
+      await mailFake?.stop();
       // The cluster may live outside workDir (see LocalPostgres), so it is removed on its own.
       await postgres?.remove();
       rmSync(workDir, { recursive: true, force: true });
@@ -85,6 +88,13 @@ async function main(): Promise<number> {
   try {
     const env: NodeJS.ProcessEnv = { ...process.env, ISALLO_TEST_WORK_DIR: workDir, TZ: 'UTC' };
     delete env['DATABASE_URL'];
+    if (needsDb) {
+      // Invitations and password resets send mail: a local SMTP fake catches it, and the tests read its folder.
+      const captureDir = join(workDir, 'mail');
+      mailFake = await startMailFake(captureDir);
+      env['SMTP_URL'] = mailFake.url;
+      env['MAIL_CAPTURE_DIR'] = captureDir;
+    }
     if (postgres) {
       await postgres.start();
       await postgres.ensureDatabase('isallo_api');

@@ -2,19 +2,24 @@ import express, { type Express } from 'express';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps';
 import { authRoutes } from './auth/auth.routes';
-import { createAuthenticate } from './auth/authenticate';
+import { createAuthenticate, defaultStrategies } from './auth/authenticate';
 import { chartFormsRoutes } from './chart-forms/chart-forms.routes';
 import { errorHandler } from './errors/error-handler';
 import { apiNotFound } from './errors/not-found';
 import { followInkRoutes } from './follow-ink/follow-ink.routes';
 import { healthRoutes } from './health/health.routes';
 import { clientStatic } from './http/client-static';
+import { refuseNul } from './http/refuse-nul';
 import { securityHeaders } from './http/security';
+import { strictQuery } from './http/strict-query';
 import { iiifRoutes } from './iiif/iiif.routes';
 import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
+import { createMailer } from './mail/mailer';
+import { capturedMailsRoutes } from './mail/captured-mails.routes';
 import { lessonsRoutes, noIndex, sharedLessonRoutes } from './lessons/lessons.routes';
+import { invitationsRoutes } from './people/invitations.routes';
 import { peopleRoutes } from './people/people.routes';
 import { scansRoutes } from './scans/scans.routes';
 import { seriesRoutes } from './series/series.routes';
@@ -26,18 +31,21 @@ export type { AppDeps } from './app-deps';
 export const JSON_BODY_LIMIT = '2mb';
 
 /** Builds the Express app from its dependencies. Never listens: server.ts (or supertest) does. */
-export function createApp(deps: AppDeps): Express {
+export function createApp(given: AppDeps): Express {
+  const deps = { ...given, mailer: given.mailer ?? createMailer(given.config) };
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
   app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
-  app.use(securityHeaders());
+  app.use(securityHeaders({ behindTls: deps.config.behindTls }));
 
-  const authenticate = createAuthenticate(deps.config.jwtSecret);
+  const authenticate = createAuthenticate(defaultStrategies(deps.db, deps.config.jwtSecret));
+  app.use(['/api', '/iiif'], strictQuery);
   app.use('/api/health', healthRoutes());
   // Before the app-wide JSON parser, which would refuse a long ink line.
   app.use('/api/scans', inkLinesRoutes(deps, authenticate));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
+  app.use(refuseNul);
   app.use('/api/auth', authRoutes(deps, authenticate));
   app.use('/api/stations', authenticate, stationsRoutes(deps));
   app.use('/api/instruments', authenticate, instrumentsRoutes(deps));
@@ -46,8 +54,10 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/scans', followInkRoutes(deps, authenticate));
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
+  app.use('/api/invitations', authenticate, invitationsRoutes(deps));
   app.use('/api/lessons', authenticate, lessonsRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
+  app.use('/api/dev/mails', authenticate, capturedMailsRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));
   app.use('/api', apiNotFound);
   app.use('/iiif', iiifRoutes(deps, authenticate));

@@ -1,3 +1,4 @@
+import { createServer } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { createApp } from './app';
 import { type Config, ConfigError, loadConfig } from './config';
@@ -52,14 +53,17 @@ export async function startServer(config: Config, options: StartOptions = {}): P
     throw error;
   }
   const jobs = pgBossDerivativeJobs(boss);
-  const app = createApp({ db, storage, config, logger, jobs });
-  const server = app.listen(config.port, config.host);
+  // Listen first, then build the app: without PUBLIC_URL its links and IIIF ids use the address bound (port 0 in tests).
+  const server = createServer();
+  server.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
     server.once('error', reject);
   });
   const { port } = server.address() as AddressInfo;
   const url = `http://${config.host.includes(':') ? `[${config.host}]` : config.host}:${port}`;
+  const app = createApp({ db, storage, config: Object.freeze({ ...config, publicUrl: config.publicUrl || url }), logger, jobs });
+  server.on('request', app);
   logger.info({ url }, 'Isallo is listening');
 
   let closing: Promise<void> | undefined;

@@ -21,14 +21,20 @@ export async function signIn(db: Db, config: Config, request: SignInRequest): Pr
   if (!(await verifyPassword(person.passwordHash, request.password))) {
     throw new AppError(HTTP.unauthorized, 'unauthenticated', BAD_CREDENTIALS);
   }
-  const { token, expiresAt } = issueToken(config.jwtSecret, person.id, person.roles, config.tokenTtlSeconds);
-  const { passwordHash: _passwordHash, ...publicPerson } = person;
-  return { token, expiresAt: expiresAt.toISOString(), person: publicPerson };
+  // Told only to someone who knows the password: the account exists but an admin has stopped it.
+  if (person.isDisabled) throw new AppError(HTTP.forbidden, 'account_disabled', 'This account is disabled. Ask an admin to enable it again.');
+  return sessionFor(config, person);
+}
+
+/** A new token for a person at their current session version, with the person as the client shows them. */
+export function sessionFor(config: Config, person: Person & { sessionVersion: number }): SignInResponse {
+  const { token, expiresAt } = issueToken(config.jwtSecret, { personId: person.id, sessionVersion: person.sessionVersion }, config.tokenTtlSeconds);
+  return { token, expiresAt: expiresAt.toISOString(), person: { id: person.id, email: person.email, displayName: person.displayName, roles: person.roles } };
 }
 
 export async function getSignedInPerson(db: Db, personId: string): Promise<Person> {
   const person = await peopleRepository.findPersonById(db, personId);
   // The token is valid but its person is gone (removed since sign-in): treat it as signed out.
-  if (!person) throw new AppError(HTTP.unauthorized, 'unauthenticated', 'Your account no longer exists.');
+  if (!person) throw new AppError(HTTP.unauthorized, 'session_ended', 'Your account no longer exists.');
   return person;
 }

@@ -1,32 +1,43 @@
 import type { RequestHandler } from 'express';
-import { Passport } from 'passport';
-import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
-import { isRole, type Role } from '@shared/api/roles';
+import { Passport, type Strategy } from 'passport';
+import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
+import { jwtStrategy, SESSION_ENDED } from './jwt-strategy';
 import type { SignedInPerson } from './signed-in-person';
-import { TOKEN_ALGORITHM } from './tokens';
 
-/** Builds the middleware that verifies the bearer token and sets req.user, or answers 401. */
-export function createAuthenticate(jwtSecret: string): RequestHandler {
+/** A named way of signing a request in; passport tries them in order until one accepts. */
+export interface AuthStrategy {
+  name: string;
+  strategy: Strategy;
+}
+
+/** The strategies of the app: the bearer JWT of a sign-in. Add others (e.g. personal API tokens) here. */
+export function defaultStrategies(db: Db, jwtSecret: string): AuthStrategy[] {
+  return [{ name: 'jwt', strategy: jwtStrategy(db, jwtSecret) }];
+}
+
+function infoNames(info: unknown): unknown[] {
+  const list = Array.isArray(info) ? info : [info];
+  return list.map((item) => (item as { name?: unknown } | undefined)?.name);
+}
+
+/** Builds the middleware that signs the request in by one of the strategies and sets req.user, or answers 401. */
+export function createAuthenticate(strategies: AuthStrategy[]): RequestHandler {
   // A passport instance per app, so apps built in tests do not share strategies.
   const passport = new Passport();
-  passport.use(
-    new JwtStrategy(
-      { jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), secretOrKey: jwtSecret, algorithms: [TOKEN_ALGORITHM] },
-      (payload: { sub?: unknown; roles?: unknown }, done: (error: unknown, user?: SignedInPerson | false) => void) => {
-        const roles = Array.isArray(payload.roles) ? payload.roles.filter(isRole) : [];
-        if (typeof payload.sub !== 'string' || payload.sub === '') return done(null, false);
-        return done(null, { id: payload.sub, roles: roles as Role[] });
-      },
-    ),
-  );
+  for (const { name, strategy } of strategies) passport.use(name, strategy);
+  const names = strategies.map((s) => s.name);
   return (req, res, next) => {
     // A custom callback so that an expired token can be told apart from a missing or forged one.
-    passport.authenticate('jwt', { session: false }, (error: unknown, user: SignedInPerson | false, info: unknown) => {
+    passport.authenticate(names, { session: false }, (error: unknown, user: SignedInPerson | false, info: unknown) => {
       if (error) return next(error);
       if (!user) {
-        if ((info as { name?: unknown } | undefined)?.name === 'TokenExpiredError') {
+        const reasons = infoNames(info);
+        if (reasons.includes('TokenExpiredError')) {
           return next(new AppError(HTTP.unauthorized, 'token_expired', 'Your session has expired. Please sign in again.'));
+        }
+        if (reasons.includes(SESSION_ENDED)) {
+          return next(new AppError(HTTP.unauthorized, 'session_ended', 'This session has ended. Please sign in again.'));
         }
         return next(new AppError(HTTP.unauthorized, 'unauthenticated', 'Please sign in.'));
       }

@@ -7,6 +7,8 @@ import type { PinSetTable } from '../ink-lines/pin-set.table';
 import type { InstrumentTable } from '../instruments/instrument.table';
 import type { IntakeBatchTable, IntakeFileTable } from '../intake/intake.table';
 import type { LessonShareTable, LessonTable } from '../lessons/lesson.table';
+import type { InvitationTable, PasswordResetTable } from '../people/invitation.table';
+import type { PeopleChangeTable } from '../people/people-change.table';
 import type { PersonRoleTable, PersonTable } from '../people/person.table';
 import type { ScanTable } from '../scans/scan.table';
 import type { SeriesChangeTable } from '../series/series-change.table';
@@ -31,6 +33,9 @@ export interface Database {
   series_change: SeriesChangeTable;
   lesson: LessonTable;
   lesson_share: LessonShareTable;
+  invitation: InvitationTable;
+  password_reset: PasswordResetTable;
+  people_change: PeopleChangeTable;
 }
 
 export type Db = Kysely<Database>;

@@ -12,7 +12,9 @@ export const HTTP = {
   payloadTooLarge: 413,
   unsupportedMediaType: 415,
   unprocessable: 422,
+  tooManyRequests: 429,
   internal: 500,
+  serviceUnavailable: 503,
 } as const;
 
 /** An error the client is meant to see: status, stable code, plain message and optional details. */

@@ -23,9 +23,16 @@ function fromMulter(err: unknown, maxUploadBytes: number): AppError | null {
   return new AppError(HTTP.badRequest, 'bad_request', `The upload was not understood: ${err.message}.`, { field: err.field });
 }
 
+/** PostgreSQL refuses NUL in text (22021) and in jsonb (22P05): the client's text, not our fault. */
+function fromPostgres(err: unknown): AppError | null {
+  const code = (err as { code?: unknown } | null)?.code;
+  if (code === '22021' || code === '22P05') return new AppError(HTTP.badRequest, 'validation_failed', 'A text field holds a NUL character (U+0000), which no field may hold.');
+  return null;
+}
+
 /** The AppError an error stands for (ours, body-parser's or multer's), or null for a fault of the server. */
 export function knownError(err: unknown, maxUploadBytes: number): AppError | null {
-  return err instanceof AppError ? err : (fromBodyParser(err) ?? fromMulter(err, maxUploadBytes));
+  return err instanceof AppError ? err : (fromBodyParser(err) ?? fromMulter(err, maxUploadBytes) ?? fromPostgres(err));
 }
 
 /** The one place that turns errors into `{ error: { code, message, details? } }`; never sends a stack. */

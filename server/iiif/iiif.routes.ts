@@ -1,19 +1,16 @@
-import { Router, type Request, type RequestHandler, type Response } from 'express';
+import { Router, type RequestHandler, type Response } from 'express';
 import { IIIF } from '@shared/api/routes';
 import type { AppDeps } from '../app-deps';
 import { requireRoles } from '../auth/require-roles';
 import { parseScanId } from '../scans/parse-scan-input';
+import { seesWithdrawn } from '../scans/scans.routes';
+import * as scansService from '../scans/scans.service';
 import { INFO_MEDIA_TYPE } from './info-document';
 import { PRESENTATION_MEDIA_TYPE } from './manifest-document';
 import * as iiifService from './iiif.service';
 
 const SEE_OTHER = 303;
 const NO_CONTENT = 204;
-
-/** The scheme, host and port the caller used (Express trusts X-Forwarded-* only from loopback). */
-function originOf(req: Request): string {
-  return `${req.protocol}://${req.get('host')}`;
-}
 
 /** Sends JSON-LD under its profiled media type; a Buffer body keeps Express from adding a charset inside it. */
 function sendJsonLd(res: Response, mediaType: string, document: unknown, cacheControl: string): void {
@@ -38,9 +35,20 @@ const iiifCors: RequestHandler = (req, res, next) => {
 };
 
 /** Mounted at /iiif, before the client fallback. Archivists and volunteers, with the bearer token. */
-export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandler): Router {
+export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: RequestHandler): Router {
   const router = Router();
+  // Ids and manifests name the configured public base URL, never the request's Host header (which a caller can forge).
+  const origin = config.publicUrl;
   router.use(iiifCors, authenticate, requireRoles('archivist', 'volunteer'));
+  // A withdrawn scan's images and manifest are hidden from volunteers as its catalogue entry is.
+  router.param('scanId', async (req, _res, next, value: string) => {
+    try {
+      await scansService.getScan(db, parseScanId(value), { hideWithdrawn: !seesWithdrawn(req) });
+      next();
+    } catch (error) {
+      next(error);
+    }
+  });
 
   // §3 base URI: dereferencing it SHOULD give the info document, RECOMMENDED by a 303 (docs/references.md §7).
   router.get('/3/:scanId', (req, res) => {
@@ -48,11 +56,11 @@ export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandle
   });
   router.get('/3/:scanId/info.json', async (req, res) => {
     const scanId = parseScanId(req.params.scanId);
-    const info = await iiifService.getInfoDocument(db, scanId, `${originOf(req)}${IIIF.imageBase(scanId)}`);
+    const info = await iiifService.getInfoDocument(db, scanId, `${origin}${IIIF.imageBase(scanId)}`);
     sendJsonLd(res, INFO_MEDIA_TYPE, info, 'private, max-age=300');
   });
   router.get('/3/:scanId/manifest', async (req, res) => {
-    const manifest = await iiifService.getManifest(db, parseScanId(req.params.scanId), originOf(req));
+    const manifest = await iiifService.getManifest(db, parseScanId(req.params.scanId), origin);
     sendJsonLd(res, PRESENTATION_MEDIA_TYPE, manifest, 'private, no-cache');
   });
   router.get('/3/:scanId/:region/:size/:rotation/:qualityAndFormat', async (req, res) => {
@@ -62,7 +70,7 @@ export function iiifRoutes({ db, storage }: AppDeps, authenticate: RequestHandle
     res.sendFile(image.filePath, { dotfiles: 'allow', headers: { 'Content-Type': image.contentType, 'Cache-Control': 'private, max-age=86400' } });
   });
   router.get('/collection/box/:collection/:box', async (req, res) => {
-    const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, originOf(req));
+    const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, origin);
     sendJsonLd(res, PRESENTATION_MEDIA_TYPE, collection, 'private, no-cache');
   });
   return router;

@@ -1,5 +1,8 @@
 import { AppError, HTTP } from '../errors/app-error';
 
+/** Largest width or height of a JPEG, px. */
+export const MAX_JPEG_SIDE_PX = 65_535;
+
 /** A parsed IIIF Image API 3.0 request, resolved against the image's size. */
 export interface ImageRequest {
   /** Region in image pixels (clipped to the image). */
@@ -96,6 +99,10 @@ function parseSize(text: string, regionWidth: number, regionHeight: number, limi
   if (size.width <= 0 || size.height <= 0) throw badRequest('size', 'width and height must be above zero');
   if (!mayUpscale && (size.width > regionWidth || size.height > regionHeight)) {
     throw badRequest('size', `${size.width} × ${size.height} is larger than the ${regionWidth} × ${regionHeight} region; prefix ^ to upscale`);
+  }
+  // JPEG stores each side in 16 bits (ITU-T T.81, B.2.2): nothing wider or taller than 65 535 px can be encoded.
+  if (size.width > MAX_JPEG_SIDE_PX || size.height > MAX_JPEG_SIDE_PX) {
+    throw badRequest('size', `${size.width} × ${size.height} is more than the ${MAX_JPEG_SIDE_PX} px a side a JPEG can hold`);
   }
   if (size.width * size.height > limits.maxArea) throw badRequest('size', `${size.width} × ${size.height} is more than the maxArea of ${limits.maxArea} px²`);
   return size;

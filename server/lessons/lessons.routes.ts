@@ -1,5 +1,4 @@
 import { type Request, type RequestHandler, type Response, Router } from 'express';
-import { rateLimit } from 'express-rate-limit';
 import {
   LESSON_SCOPES,
   LESSON_SORT_KEYS,
@@ -23,15 +22,13 @@ import { isUuid, readPageQuery } from '../http/parse-query';
 import * as iiifService from '../iiif/iiif.service';
 import type { Db } from '../db/database';
 import type { Storage } from '../storage/storage';
+import { sharedLinkLimit } from '../http/rate-limits';
 import { MAX_CHART_REGIONS, regionImageSize } from './lesson-passage';
 import * as lessonsService from './lessons.service';
 import type { LessonCaller, RegionImage } from './lessons.service';
 import { ANNOTATION_MEDIA_TYPE, buildAnnotationCollection } from './web-annotation';
 
 const NO_CONTENT = 204;
-const TOO_MANY_REQUESTS = 429;
-/** Requests one address may make to share links per minute (a class of thirty opening a page and its charts). */
-export const SHARED_REQUESTS_PER_MINUTE = 300;
 
 function caller(req: Request): LessonCaller {
   const person = signedInPerson(req.user);
@@ -72,9 +69,6 @@ function readVersion(query: Record<string, unknown>): number {
   return version;
 }
 
-function originOf(req: Request): string {
-  return `${req.protocol}://${req.get('host')}`;
-}
 
 /** Sends a region's JPEG through the server's IIIF image code (cached and tiled as any IIIF answer). */
 async function sendRegionImage(db: Db, storage: Storage, res: Response, image: RegionImage, cacheControl: string): Promise<void> {
@@ -89,7 +83,7 @@ async function sendRegionImage(db: Db, storage: Storage, res: Response, image: R
 }
 
 /** Mounted at /api/lessons behind authenticate: teachers build lessons, admins may change any. */
-export function lessonsRoutes({ db, storage }: AppDeps): Router {
+export function lessonsRoutes({ db, storage, config }: AppDeps): Router {
   const router = Router();
   router.use(requireRoles('teacher', 'admin'));
 
@@ -123,7 +117,7 @@ export function lessonsRoutes({ db, storage }: AppDeps): Router {
   });
   router.get('/:lessonId/annotations', async (req, res) => {
     const lesson = await lessonsService.getLesson(db, caller(req), lessonId(req.params.lessonId));
-    const collection = buildAnnotationCollection(originOf(req), lesson);
+    const collection = buildAnnotationCollection(config.publicUrl, lesson);
     res.set({ 'Content-Type': ANNOTATION_MEDIA_TYPE, 'Content-Disposition': 'attachment; filename="lesson-annotations.jsonld"' });
     res.send(Buffer.from(JSON.stringify(collection), 'utf8'));
   });
@@ -157,13 +151,7 @@ export function sharedLessonRoutes({ db, storage }: AppDeps): Router {
   const router = Router();
   router.use(
     noIndex,
-    rateLimit({
-      windowMs: 60_000,
-      limit: SHARED_REQUESTS_PER_MINUTE,
-      standardHeaders: 'draft-8',
-      legacyHeaders: false,
-      handler: (_req, _res, next) => next(new AppError(TOO_MANY_REQUESTS, 'rate_limited', 'Too many requests to share links from your address; wait a minute and try again.')),
-    }),
+    sharedLinkLimit(),
   );
   router.get('/:token', async (req, res: Response<SharedLesson>) => {
     res.set('Cache-Control', 'no-store');

@@ -13,6 +13,8 @@ export interface ScanFilter {
   to?: Date;
   tags?: string[];
   q?: string;
+  /** Leave withdrawn scans out whatever the status filter says (volunteers never see them). */
+  hideWithdrawn?: boolean;
   /** Longest span_end − span_start in the catalogue, ms (read by the repository before a date-range query). */
   longestSpanMs?: number;
 }
@@ -29,6 +31,7 @@ export function scanFilterWhere(filter: ScanFilter, options: { withStatus: boole
   return (eb: ScanExpressions): Expression<SqlBool> => {
     const conditions: Expression<SqlBool>[] = [];
     if (options.withStatus && filter.status) conditions.push(eb('scan.status', '=', filter.status));
+    if (filter.hideWithdrawn) conditions.push(eb('scan.status', '<>', 'withdrawn'));
     if (filter.stationId) conditions.push(eb('scan.station_id', '=', filter.stationId));
     if (filter.instrumentId) conditions.push(eb('scan.instrument_id', '=', filter.instrumentId));
     if (filter.chartFormId) conditions.push(eb('scan.chart_form_id', '=', filter.chartFormId));

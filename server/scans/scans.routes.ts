@@ -11,6 +11,11 @@ import { parseScanFilter, parseScanId, parseUploadFields } from './parse-scan-in
 import { receiveScanFile, uploadedFile } from './scan-upload';
 import * as scansService from './scans.service';
 
+/** Withdrawn scans are the archivist's business: a volunteer neither lists nor opens them (as the Desk never offers them). */
+export function seesWithdrawn(req: Request): boolean {
+  return signedInPerson(req.user).roles.includes('archivist');
+}
+
 /** Mounted at /api/scans behind authenticate. */
 export function scansRoutes(deps: AppDeps): Router {
   const { db, storage, config } = deps;
@@ -19,7 +24,7 @@ export function scansRoutes(deps: AppDeps): Router {
   const mayEdit = requireRoles('archivist');
 
   router.get('/', mayRead, async (req, res: Response<Page<ScanSummary>>) => {
-    const filter = parseScanFilter(req.query);
+    const filter = { ...parseScanFilter(req.query), hideWithdrawn: !seesWithdrawn(req) };
     res.json(await scansService.listScans(db, filter, readPageQuery(req.query, SCAN_SORT_KEYS)));
   });
 
@@ -36,7 +41,7 @@ export function scansRoutes(deps: AppDeps): Router {
   });
 
   router.get('/:scanId', mayRead, async (req, res: Response<ScanDetail>) => {
-    res.json(await scansService.getScan(db, parseScanId(req.params.scanId)));
+    res.json(await scansService.getScan(db, parseScanId(req.params.scanId), { hideWithdrawn: !seesWithdrawn(req) }));
   });
 
   router.patch('/:scanId', mayEdit, async (req, res: Response<ScanDetail>) => {
@@ -63,7 +68,9 @@ export function scansRoutes(deps: AppDeps): Router {
   });
 
   router.get('/:scanId/preview', mayRead, async (req, res) => {
-    const previewPath = await scansService.getPreviewPath(db, storage, parseScanId(req.params.scanId));
+    const scanId = parseScanId(req.params.scanId);
+    await scansService.getScan(db, scanId, { hideWithdrawn: !seesWithdrawn(req) });
+    const previewPath = await scansService.getPreviewPath(db, storage, scanId);
     // The preview is named by the master's hash, so it never changes under its URL.
     res.sendFile(previewPath, { dotfiles: 'allow', headers: { 'Content-Type': 'image/jpeg', 'Cache-Control': 'private, max-age=86400' } });
   });

@@ -39,9 +39,10 @@ export async function countScansByStatus(db: Db, filter: ScanFilter): Promise<Sc
   return scansRepository.countScansByStatus(db, filter);
 }
 
-export async function getScan(db: DbOrTrx, scanId: string): Promise<ScanDetail> {
+/** The scan, or 404 scan_not_found (also for a withdrawn scan when `hideWithdrawn`, so a volunteer learns nothing of it). */
+export async function getScan(db: DbOrTrx, scanId: string, options: { hideWithdrawn?: boolean } = {}): Promise<ScanDetail> {
   const scan = await scansRepository.findScanById(db, scanId);
-  if (!scan) throw scanNotFound();
+  if (!scan || (options.hideWithdrawn && scan.status === 'withdrawn')) throw scanNotFound();
   return scan;
 }
 

@@ -4,6 +4,10 @@ export type ApiErrorCode =
   | 'validation_failed'
   | 'unauthenticated'
   | 'token_expired'
+  /** A well-signed token whose session was ended (signed out everywhere, roles or password changed, account disabled or removed). */
+  | 'session_ended'
+  /** Sign-in with the right password to an account an admin has disabled. */
+  | 'account_disabled'
   | 'forbidden'
   | 'not_found'
   | 'scan_not_found'
@@ -23,7 +27,23 @@ export type ApiErrorCode =
   | 'lesson_not_found'
   /** A share link that does not exist, has expired or was revoked (the three are not told apart). */
   | 'share_link_not_found'
+  /** An invitation (or an account) for an address that already has an account. */
+  | 'email_taken'
+  /** A second invitation for an address whose invitation is still open. */
+  | 'invitation_open'
+  /** Resend or withdraw of an invitation already accepted or withdrawn. */
+  | 'invitation_closed'
+  | 'invitation_not_found'
+  /** An invitation link that was used, withdrawn, replaced or has expired (not told apart). */
+  | 'invitation_link_not_found'
+  /** A password reset link that was used, replaced or has expired (not told apart). */
+  | 'reset_link_not_found'
+  | 'person_not_found'
+  /** A change that would leave no enabled admin. */
+  | 'last_admin'
   | 'rate_limited'
+  /** No mail server is set up, or it refused the mail. */
+  | 'mail_unavailable'
   /** A shared edit carried a version that is no longer the stored one. */
   | 'version_conflict'
   | 'chart_form_name_taken'

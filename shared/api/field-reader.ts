@@ -24,6 +24,25 @@ export class FieldReader {
     if (this.record !== body) this.details['body'] = 'the body must be a JSON object';
   }
 
+  /** Names each key of the body that is not among `allowed`: an unknown field is a mistake, not something to ignore. */
+  refuseOtherKeys(allowed: readonly string[]): void {
+    for (const key of Object.keys(this.record)) {
+      if (!allowed.includes(key)) this.problem(key, `${key} is not a field of this request`);
+    }
+  }
+
+  /** The value as sent, for readers of shapes this class does not know. */
+  raw(key: string): unknown {
+    return this.record[key];
+  }
+
+  boolean(key: string): boolean | undefined {
+    const value = this.record[key];
+    if (value === undefined) return undefined;
+    if (typeof value !== 'boolean') return this.fail(key, `${key} must be true or false`);
+    return value;
+  }
+
   has(key: string): boolean {
     return this.record[key] !== undefined;
   }

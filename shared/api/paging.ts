@@ -10,6 +10,8 @@ export type SortDirection = 'asc' | 'desc';
 
 export const DEFAULT_PAGE_SIZE = 25;
 export const MAX_PAGE_SIZE = 200;
+/** Highest page number taken: far past any list Isallo holds, and low enough that the row offset stays a safe integer. */
+export const MAX_PAGE = 1_000_000;
 
 export interface PageQuery<S extends string = string> {
   page: number;
@@ -28,7 +30,7 @@ export function parsePageQuery<S extends string>(
 ): { ok: true; value: PageQuery<S> } | { ok: false; details: Record<string, string> } {
   const details: Record<string, string> = {};
   const page = query['page'] === undefined ? 0 : Number(query['page']);
-  if (!Number.isInteger(page) || page < 0) details['page'] = 'page must be a whole number from 0';
+  if (!Number.isInteger(page) || page < 0 || page > MAX_PAGE) details['page'] = `page must be a whole number from 0 to ${MAX_PAGE}`;
   const pageSize = query['pageSize'] === undefined ? DEFAULT_PAGE_SIZE : Number(query['pageSize']);
   if (!Number.isInteger(pageSize) || pageSize < 1 || pageSize > MAX_PAGE_SIZE) {
     details['pageSize'] = `pageSize must be a whole number from 1 to ${MAX_PAGE_SIZE}`;

@@ -26,6 +26,18 @@ export const API = {
   series: '/api/series',
   seriesCsv: '/api/series.csv',
   people: '/api/people',
+  person: (personId: string) => `/api/people/${enc(personId)}`,
+  peopleChanges: '/api/people/changes',
+  invitations: '/api/invitations',
+  invitation: (invitationId: string) => `/api/invitations/${enc(invitationId)}`,
+  invitationResend: (invitationId: string) => `/api/invitations/${enc(invitationId)}/resend`,
+  /** The invitee's side, with the link's secret and no sign-in: GET shows the invitation, POST …/accept takes it. */
+  invitationByToken: (token: string) => `/api/auth/invitations/${enc(token)}`,
+  invitationAccept: (token: string) => `/api/auth/invitations/${enc(token)}/accept`,
+  myPassword: '/api/auth/me/password',
+  signOutEverywhere: '/api/auth/me/sign-out-everywhere',
+  passwordResetRequests: '/api/auth/password-reset-requests',
+  passwordResets: '/api/auth/password-resets',
   lessons: '/api/lessons',
   lesson: (lessonId: string) => `/api/lessons/${enc(lessonId)}`,
   lessonCopy: (lessonId: string) => `/api/lessons/${enc(lessonId)}/copy`,
@@ -35,6 +47,8 @@ export const API = {
   lessonShare: (lessonId: string, shareId: string) => `/api/lessons/${enc(lessonId)}/shares/${enc(shareId)}`,
   /** What a share link shows, with no sign-in; its chart regions are under it (see LessonPassage.regions). */
   sharedLesson: (token: string) => `/api/shared/${enc(token)}`,
+  /** Mails the local SMTP fake captured (development only, admin). */
+  capturedMails: '/api/dev/mails',
   health: '/api/health',
 } as const;
 
@@ -54,3 +68,9 @@ export const IIIF = {
 
 /** Size of the IIIF tiles the worker makes, px. */
 export const IIIF_TILE_SIZE_PX = 512;
+
+/** Client pages that mails link to (relative to the public base URL). */
+export const PAGES = {
+  invitation: (token: string) => `/invitation/${enc(token)}`,
+  passwordReset: (token: string) => `/reset-password/${enc(token)}`,
+} as const;

@@ -5,14 +5,18 @@ import { ROLES } from '@shared/api/roles';
 import { API, IIIF } from '@shared/api/routes';
 import * as instrumentsRepository from '../../server/instruments/instruments.repository';
 import * as intakeRepository from '../../server/intake/intake.repository';
+import * as invitationsRepository from '../../server/people/invitations.repository';
 import * as scansService from '../../server/scans/scans.service';
-import { createChartForm, createPerson, createScanRow, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
+import { createChartForm, createPerson, createScanRow, createStation, TEST_PASSWORD, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { makePng } from '../helpers/images';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 import { createTracedFrontScan } from '../helpers/lesson-fixtures';
 import { syntheticDraft } from '../helpers/trace';
 
 const PERIOD_START = '2026-03-02T00:00:00.000Z';
+
+// The set-up uploads a scan and traces a front; the password routes hash with argon2id: slow on a loaded machine.
+jest.setTimeout(30_000);
 
 interface RouteCase {
   name: string;
@@ -38,17 +42,29 @@ describe('who may call each route', () => {
   let lessonId: string;
   let lessonShareId: string;
   let lessonToken: string;
+  let editedPersonId: string;
+  let invitationId: string;
+  let inviteNumber = 0;
+
+  /** A new person with the roles of the token's owner, or null for no token. */
+  async function throwawayToken(token: string | null): Promise<string | null> {
+    if (token === null) return null;
+    const owner = Object.values(people).find((person) => person.token === token) as TestPerson;
+    return (await createPerson(context.db, owner.roles)).token;
+  }
 
   function withToken(call: request.Test, token: string | null): request.Test {
     return token === null ? call : call.set('Authorization', `Bearer ${token}`);
   }
 
-  async function versionOf(table: 'station' | 'instrument' | 'chart_form' | 'scan' | 'lesson', id: string): Promise<number> {
+  async function versionOf(table: 'station' | 'instrument' | 'chart_form' | 'scan' | 'lesson' | 'person', id: string): Promise<number> {
     const row = await context.db.selectFrom(table).select('version').where('id', '=', id).executeTakeFirstOrThrow();
     return row.version;
   }
 
-  async function count(table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch' | 'lesson' | 'lesson_share'): Promise<number> {
+  async function count(
+    table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch' | 'lesson' | 'lesson_share' | 'invitation' | 'people_change',
+  ): Promise<number> {
     const { total } = await context.db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow();
     return total;
   }
@@ -238,6 +254,74 @@ describe('who may call each route', () => {
       call: (token) => withToken(request(context.app).get(API.seriesCsv).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
     },
     { name: 'GET /api/people', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.people), token) },
+    { name: 'GET /api/people/changes', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.peopleChanges), token) },
+    {
+      name: 'PATCH /api/people/:personId',
+      roles: ['admin'],
+      successStatus: 200,
+      call: async (token) => {
+        // Each call flips the target between two roles, so each allowed call is a change (and a log entry).
+        const current = await context.db.selectFrom('person_role').select('role').where('person_id', '=', editedPersonId).execute();
+        const roles = current.some((row) => row.role === 'teacher') ? ['volunteer'] : ['teacher'];
+        return withToken(request(context.app).patch(API.person(editedPersonId)), token).send({ version: await versionOf('person', editedPersonId), roles });
+      },
+      sideEffectCount: () => count('people_change'),
+    },
+    { name: 'GET /api/invitations', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.invitations), token) },
+    {
+      name: 'POST /api/invitations',
+      roles: ['admin'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.invitations), token).send({ email: `role-invite-${++inviteNumber}@isallo.test`, roles: ['volunteer'] }),
+      sideEffectCount: () => count('invitation'),
+    },
+    {
+      name: 'POST /api/invitations/:invitationId/resend',
+      roles: ['admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).post(API.invitationResend(invitationId)), token),
+      sideEffectCount: () => count('people_change'),
+    },
+    {
+      name: 'DELETE /api/invitations/:invitationId',
+      roles: ['admin'],
+      successStatus: 204,
+      call: async (token) => {
+        const fresh = await invitationsRepository.insertInvitation(context.db, {
+          email: `role-withdraw-${++inviteNumber}@isallo.test`,
+          roles: ['volunteer'],
+          tokenHash: `hash-${inviteNumber}`,
+          invitedBy: people.admin.id,
+          expiresAt: new Date(Date.now() + 3600_000),
+        });
+        return withToken(request(context.app).delete(API.invitation(fresh.id)), token);
+      },
+      sideEffectCount: async () => (await context.db.selectFrom('invitation').select('id').where('withdrawn_at', 'is not', null).execute()).length,
+    },
+    { name: 'GET /api/dev/mails', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.capturedMails), token) },
+    {
+      name: 'PATCH /api/auth/me',
+      roles: ROLES,
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).patch(API.me), token).send({ displayName: `Renamed ${++inviteNumber}` }),
+      sideEffectCount: () => count('people_change'),
+    },
+    {
+      name: 'POST /api/auth/me/password',
+      roles: ROLES,
+      successStatus: 200,
+      // Ends the caller's other sessions: a person of the same role made for the call, so the table's people keep theirs.
+      call: async (token) =>
+        withToken(request(context.app).post(API.myPassword), await throwawayToken(token)).send({ currentPassword: TEST_PASSWORD, newPassword: 'stylus-on-the-drum-7' }),
+      sideEffectCount: () => count('people_change'),
+    },
+    {
+      name: 'POST /api/auth/me/sign-out-everywhere',
+      roles: ROLES,
+      successStatus: 204,
+      call: async (token) => withToken(request(context.app).post(API.signOutEverywhere), await throwawayToken(token)),
+      sideEffectCount: () => count('people_change'),
+    },
     { name: 'GET /api/lessons', roles: ['teacher', 'admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.lessons), token) },
     {
       name: 'POST /api/lessons',
@@ -310,6 +394,16 @@ describe('who may call each route', () => {
     context = await createTestContext();
     await truncateTables(context.db);
     for (const role of ROLES) people[role] = await createPerson(context.db, [role]);
+    editedPersonId = (await createPerson(context.db, ['volunteer'])).id;
+    invitationId = (
+      await invitationsRepository.insertInvitation(context.db, {
+        email: 'role-resend@isallo.test',
+        roles: ['volunteer'],
+        tokenHash: 'role-resend-hash',
+        invitedBy: people.admin.id,
+        expiresAt: new Date(Date.now() + 3600_000),
+      })
+    ).id;
     stationId = (await createStation(context.db)).id;
     chartFormId = (await createChartForm(context.db)).id;
     const tempPath = context.storage.newTempPath('.upload');

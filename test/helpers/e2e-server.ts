@@ -43,6 +43,8 @@ export async function startE2eServer(suite: string, options: { withWorker?: bool
     STORAGE_DIR: join(workDir, 'storage'),
     CLIENT_DIR: process.env['CLIENT_DIR'] ?? join(ROOT, 'dist/client/browser'),
     LOG_LEVEL: 'warn',
+    SMTP_URL: process.env['SMTP_URL'],
+    MAIL_CAPTURE_DIR: process.env['MAIL_CAPTURE_DIR'],
   });
   const server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures'), withWorker: options.withWorker ?? false });
   return { server, workDir };

@@ -40,7 +40,8 @@ export async function createPerson(db: Db, roles: Role[], email = `person-${next
     passwordHash: await testPasswordHash,
     roles,
   });
-  const { token } = issueToken(TEST_JWT_SECRET, id, roles, 3600);
+  // A new person's session version is 1 (the column's default).
+  const { token } = issueToken(TEST_JWT_SECRET, { personId: id, sessionVersion: 1 }, 3600);
   return { id, email, password: TEST_PASSWORD, roles, token };
 }
 

@@ -42,6 +42,14 @@ export function testConfig(storageDir: string, overrides: Partial<Config> = {}):
     clientDir: path.join(storageDir, 'no-client'),
     maxUploadBytes: 20 * 1024 * 1024,
     logLevel: 'silent',
+    // scripts/test.ts starts the local SMTP fake and says where it writes what it captures.
+    smtpUrl: process.env['SMTP_URL'] ?? '',
+    mailFrom: 'Isallo <isallo@isallo.test>',
+    mailCaptureDir: process.env['MAIL_CAPTURE_DIR'] ?? null,
+    publicUrl: 'http://isallo.test',
+    invitationTtlSeconds: 7 * 24 * 3600,
+    behindTls: false,
+    iiifCacheMaxBytes: 512 * 1024 * 1024,
     ...overrides,
   };
 }
@@ -99,6 +107,9 @@ const APP_TABLES: (keyof Database)[] = [
   'scan',
   'chart_form',
   'station',
+  'people_change',
+  'password_reset',
+  'invitation',
   'person_role',
   'person',
   'demo_seed',

@@ -8,6 +8,10 @@ import { AppShell } from './core/layout/app-shell';
 
 export const routes: Routes = [
   { path: 'sign-in', loadChildren: () => import('./sign-in/sign-in.routes').then((m) => m.signInRoutes) },
+  // Pages a mailed link opens, and the reset request: no account or sign-in yet.
+  { path: 'invitation', loadChildren: () => import('./account/account.routes').then((m) => m.invitationRoutes) },
+  { path: 'forgot-password', loadChildren: () => import('./account/account.routes').then((m) => m.forgotPasswordRoutes) },
+  { path: 'reset-password', loadChildren: () => import('./account/account.routes').then((m) => m.resetPasswordRoutes) },
   // A share link's page is for a class without accounts: outside the shell and its sign-in guard.
   { path: 'shared', loadChildren: () => import('./lessons/shared-lesson.routes').then((m) => m.sharedLessonRoutes) },
   {
@@ -47,6 +51,7 @@ export const routes: Routes = [
         canMatch: [roleGuard(rolesFor('people'))],
         loadChildren: () => import('./people/people.routes').then((m) => m.peopleRoutes),
       },
+      { path: 'account', loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes) },
       { path: 'no-area', loadComponent: () => import('./core/layout/no-area/no-area').then((m) => m.NoArea) },
     ],
   },

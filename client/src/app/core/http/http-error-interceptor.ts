@@ -23,7 +23,7 @@ export const httpErrorInterceptor: HttpInterceptorFn = (request, next) => {
       return from(readErrorBody(error)).pipe(
         switchMap((body) => {
           const apiError = toApiError(error, body);
-          const isSessionOver = apiError.code === 'token_expired' || apiError.code === 'unauthenticated';
+          const isSessionOver = apiError.code === 'token_expired' || apiError.code === 'unauthenticated' || apiError.code === 'session_ended';
           if (apiError.status === 401 && isSessionOver && session.isSignedIn()) endExpiredSession(session, router);
           if (apiError.status === 0 || apiError.status >= 500) snackBar.open(apiError.message, 'Dismiss', { duration: 8000 });
           return throwError(() => apiError);
