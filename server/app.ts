@@ -11,7 +11,7 @@ import { healthRoutes } from './health/health.routes';
 import { clientStatic } from './http/client-static';
 import { securityHeaders } from './http/security';
 import { iiifRoutes } from './iiif/iiif.routes';
-import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
+import { inkLinesRoutes, myInkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
 import { lessonsRoutes, noIndex, sharedLessonRoutes } from './lessons/lessons.routes';
@@ -47,6 +47,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
   app.use('/api/lessons', authenticate, lessonsRoutes(deps));
+  app.use('/api/ink-lines', authenticate, myInkLinesRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));
   app.use('/api', apiNotFound);

@@ -25,6 +25,10 @@ export type ApiErrorCode =
   | 'share_link_not_found'
   | 'rate_limited'
   | 'version_conflict'
+  /** The Bench's draft changed on the server (another tab or window) since this page last saved it. */
+  | 'draft_version_conflict'
+  /** The volunteer has already handed in a line for this scan. */
+  | 'already_handed_in'
   | 'conflict'
   | 'internal_error';
 
