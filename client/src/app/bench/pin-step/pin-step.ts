@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, effect, ElementRef, inject, input, viewChild } from '@angular/core';
 import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,11 +7,11 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import type { PressureUnit } from '@shared/domain/pressure-units';
 
-import { parseUtcInstant } from '../../shared/utc-instant/parse-utc-instant';
+import { parseTypedUtc } from '../../shared/utc-instant/parse-typed-utc';
 import { BenchState } from '../bench-state';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
-  return control.value === '' || parseUtcInstant(control.value) !== null ? null : { utcInstant: true };
+  return control.value === '' || parseTypedUtc(control.value) !== null ? null : { utcInstant: true };
 }
 
 /** The Pin step: type the time and pressure printed at the crossing just clicked; the pins so far, with delete. */
@@ -28,13 +28,22 @@ export class PinStep {
   /** The chart form's printed unit, the unit pins are typed in. */
   readonly pressureUnit = input.required<PressureUnit>();
 
+  private readonly timeInput = viewChild<ElementRef<HTMLInputElement>>('timeInput');
+
+  constructor() {
+    // Focus goes to the time field as soon as a crossing is picked, so the volunteer types at once; Enter saves.
+    effect(() => {
+      if (this.state.pendingPin()) this.timeInput()?.nativeElement.focus();
+    });
+  }
+
   protected readonly form = inject(NonNullableFormBuilder).group({
     time: ['', [Validators.required, utcInstantValidator]],
     pressure: ['', [Validators.required, Validators.pattern(/^-?\d+(\.\d+)?$/)]],
   });
 
   protected savePin(): void {
-    const time = parseUtcInstant(this.form.controls.time.value);
+    const time = parseTypedUtc(this.form.controls.time.value);
     const pressure = Number(this.form.controls.pressure.value);
     if (this.form.invalid || time === null || !Number.isFinite(pressure)) {
       this.form.markAllAsTouched();
