@@ -1,41 +1,10 @@
-import type { BenchWork } from '@shared/api/bench-work';
 import type { InkLineSaved, PinInput } from '@shared/api/ink-lines';
 import type { ChartForm } from '@shared/domain/chart-form';
-import { digitizeLine, type PipelineLine, type PipelineResult } from '@shared/domain/pipeline/digitize-line';
+import type { PipelineResult } from '@shared/domain/pipeline/digitize-line';
+export { computeHandIn } from '@shared/domain/pipeline/digitize-work';
 import type { NewSeriesPoint } from '../series/series.repository';
 import { fitRegistration, type RegistrationFit, type RegistrationPin } from '@shared/domain/registration';
 import type { StoredInkLineResult } from './ink-line.table';
-
-/**
- * The Bench's knots as the pipeline's line: a knot's gapAfter (a pen gap or a lift) is a gap span to the next,
- * bridgeAfter a bridge; hand-placed knots have no confidence (NaN), followed ones the finder's.
- */
-export function lineOfKnots(work: BenchWork): PipelineLine {
-  return {
-    xPx: work.knots.map((k) => k.xPx),
-    yPx: work.knots.map((k) => k.yPx),
-    confidence: work.knots.map((k) => k.confidence ?? Number.NaN),
-    spans: work.knots.flatMap((k, i) => (k.gapAfter && i + 1 < work.knots.length ? [{ kind: 'gap' as const, startIndex: i, endIndex: i + 1 }] : [])),
-    bridgesAfter: work.knots.flatMap((k, i) => (k.bridgeAfter ? [i] : [])),
-    lineWidthPx: null,
-    foundTimeMarks: [],
-  };
-}
-
-/** Recomputes a hand-in from the work alone, through the shared pipeline; throws RegistrationError for bad pins. */
-export function computeHandIn(form: ChartForm, chartStartMs: number, work: BenchWork): PipelineResult {
-  return digitizeLine({
-    form,
-    chartStartMs,
-    pins: work.pins.map((p) => ({ xPx: p.xPx, yPx: p.yPx, timeMs: Date.parse(p.time), pressure: p.pressure })),
-    ink: lineOfKnots(work),
-    // Every time mark of a hand-in has its time (the parser insists) and its foot on the line.
-    timeMarks: work.timeMarks.map((m) => ({ trueTimeMs: Date.parse(m.time as string), xPx: m.xPx, yPx: m.yPx })),
-    chartOnMs: work.chartOn === null ? null : Date.parse(work.chartOn),
-    chartOffMs: work.chartOff === null ? null : Date.parse(work.chartOff),
-    checkReadings: work.checkReadings.map((c) => ({ timeMs: Date.parse(c.time), pressureHpa: c.pressureHpa })),
-  });
-}
 
 /** The valued points of the series (a gap is the absence of points, since a stored point always has a pressure). */
 export function seriesPointsOf(result: PipelineResult): NewSeriesPoint[] {

@@ -20,6 +20,7 @@ import { InkLinesApi } from '../ink-lines-api';
 import { InkStep } from '../ink-step/ink-step';
 import { MarksStep } from '../marks-step/marks-step';
 import { PinStep } from '../pin-step/pin-step';
+import { ProofStep } from '../proof-step/proof-step';
 import { ScanStage } from '../scan-stage/scan-stage';
 import type { Size } from '../scan-stage/view-transform';
 
@@ -38,7 +39,7 @@ interface HandInProblem {
  */
 @Component({
   selector: 'isl-bench-page',
-  imports: [DatePipe, KeyValuePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ScanStage, PinStep, InkStep, MarksStep, HandInResult],
+  imports: [DatePipe, KeyValuePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ScanStage, PinStep, InkStep, MarksStep, ProofStep, HandInResult],
   providers: [BenchState, DraftSaver],
   templateUrl: './bench-page.html',
   styleUrl: './bench-page.scss',
