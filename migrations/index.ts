@@ -22,6 +22,7 @@ import * as renameScanChartStart from './2026_12_03_0600_rename_scan_chart_start
 import * as createSeriesChange from './2026_12_03_0610_create_series_change';
 import * as createLesson from './2026_12_03_1200_create_lesson';
 import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
+import * as addInkLineDraftWork from './2026_12_04_0800_add_ink_line_draft_work';
 import * as addPersonSessionVersion from './2026_12_04_1300_add_person_session_version';
 import * as addPersonVersion from './2026_12_04_1310_add_person_version';
 import * as createInvitation from './2026_12_04_1320_create_invitation';
@@ -57,6 +58,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_03_0610_create_series_change': createSeriesChange,
   '2026_12_03_1200_create_lesson': createLesson,
   '2026_12_03_1210_create_lesson_share': createLessonShare,
+  '2026_12_04_0800_add_ink_line_draft_work': addInkLineDraftWork,
   '2026_12_04_1300_add_person_session_version': addPersonSessionVersion,
   '2026_12_04_1310_add_person_version': addPersonVersion,
   '2026_12_04_1320_create_invitation': createInvitation,

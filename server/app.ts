@@ -13,7 +13,7 @@ import { refuseNul } from './http/refuse-nul';
 import { securityHeaders } from './http/security';
 import { strictQuery } from './http/strict-query';
 import { iiifRoutes } from './iiif/iiif.routes';
-import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
+import { inkLinesRoutes, myInkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
 import { createMailer } from './mail/mailer';
@@ -56,6 +56,7 @@ export function createApp(given: AppDeps): Express {
   app.use('/api/people', authenticate, peopleRoutes(deps));
   app.use('/api/invitations', authenticate, invitationsRoutes(deps));
   app.use('/api/lessons', authenticate, lessonsRoutes(deps));
+  app.use('/api/ink-lines', authenticate, myInkLinesRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
   app.use('/api/dev/mails', authenticate, capturedMailsRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticate));

@@ -1,3 +1,4 @@
+import { EMPTY_BENCH_WORK } from '@shared/api/bench-work';
 import fs from 'node:fs/promises';
 import type { Logger } from 'pino';
 import sharp from 'sharp';
@@ -136,7 +137,12 @@ export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promis
       );
       const chartStartMs = Date.parse(sample.chartStart);
       if (traced.inkLineCount === 0) {
-        await inkLinesService.handInInkLine(db, traced.id, { pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, volunteerId);
+        await inkLinesService.handInInkLine(
+          db,
+          traced.id,
+          { work: { ...EMPTY_BENCH_WORK, step: 'proof', pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, draftVersion: null },
+          volunteerId,
+        );
       }
       result.tracedScanId = traced.id;
       await seedDemoLesson(db, personIds.get('teacher@isallo.test') as string, kestrelRidge.id, chartStartMs);

@@ -50,6 +50,8 @@ export function selectScans(db: DbOrTrx) {
         .selectFrom('ink_line')
         .select((inner) => inner.fn.countAll<number>().as('count'))
         .whereRef('ink_line.scan_id', '=', 'scan.id')
+        // A draft is work in progress, not an ink line of the scan yet.
+        .where('ink_line.status', '<>', 'draft')
         .as('ink_line_count'),
     ]);
 }

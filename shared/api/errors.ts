@@ -65,6 +65,10 @@ export type ApiErrorCode =
   | 'derivatives_not_failed'
   /** The page image or tiles of the scan are not made yet. */
   | 'derivatives_not_ready'
+  /** The Bench's draft changed on the server (another tab or window) since this page last saved it. */
+  | 'draft_version_conflict'
+  /** The volunteer has already handed in a line for this scan. */
+  | 'already_handed_in'
   | 'internal_error';
 
 export interface ApiErrorBody {

@@ -1,5 +1,6 @@
 import { FEWEST_PINS } from '../domain/registration-model';
 import { readInstant } from './parse-instant';
+import { type BenchStep, isFiniteNumber, MAX_PINS, type BenchWork, parseBenchWork, type Parsed, type WorkCheckReading, type WorkKnot, type WorkTimeMark } from './bench-work';
 import type { SeriesFlag } from './series';
 
 /** A pin as the volunteer types it: a pixel on the scan and the printed time and pressure there. */
@@ -17,10 +18,26 @@ export interface KnotInput {
   yPx: number;
 }
 
-/** What the Bench sends when a volunteer hands in a trace. */
+/**
+ * What the Bench sends when a volunteer hands in a trace: the work (pins and knots at least; time marks, chart
+ * on / chart off and check readings when given) and the version of the volunteer's draft it hands in.
+ */
 export interface InkLineDraft {
   pins: PinInput[];
-  knots: KnotInput[];
+  knots: WorkKnot[];
+  timeMarks?: WorkTimeMark[];
+  chartOn?: string | null;
+  chartOff?: string | null;
+  checkReadings?: WorkCheckReading[];
+  step?: BenchStep;
+  /** The version of the caller's draft on this scan; required when the caller has one. */
+  draftVersion?: number;
+}
+
+/** A parsed hand-in: the whole work, and the draft version it was made from (null: no draft). */
+export interface HandInRequest {
+  work: BenchWork;
+  draftVersion: number | null;
 }
 
 export const INK_LINE_STATUSES = ['draft', 'handed_in', 'approved', 'returned'] as const;
@@ -41,16 +58,17 @@ export interface InkLineSaved {
   registrationRmsHpa: number;
   registrationRmsMinutes: number;
   pinResiduals: PinResidualView[];
+  /** Version of the shared pipeline that computed the points (shared/domain/pipeline/digitize-line.ts). */
+  pipelineVersion: number;
+  /** The clock correction applied; null when no time mark or chart on / chart off could be used. */
+  clock: { method: string; rmsMinutes: number; rateMinutesPerDay: number; markCount: number } | null;
+  /** The instrument correction applied; null when no check reading could be used. */
+  instrument: { method: string; rmsHpa: number; meanOffsetHpa: number; readingCount: number } | null;
   seriesPointCount: number;
   firstPoint: { time: string; pressureHpa: number; flag: SeriesFlag } | null;
 }
 
-const MAX_PINS = 200;
-const MAX_KNOTS = 100000;
-
-export function isFiniteNumber(x: unknown): x is number {
-  return typeof x === 'number' && Number.isFinite(x);
-}
+export { isFiniteNumber };
 
 /**
  * Reads the `pins` of a request body, adding problems to `details` under paths like `pins.2.time`.
@@ -77,27 +95,69 @@ export function readPins(raw: unknown, details: Record<string, string>): PinInpu
 }
 
 /**
- * Checks an ink-line draft from the wire. Used by the server route and by the Bench before sending,
- * so both report the same problems with the same paths.
+ * Checks a hand-in from the wire. Used by the server route and by the Bench before sending, so both report the
+ * same problems with the same paths.
  */
-export function parseInkLineDraft(
-  x: unknown,
-): { ok: true; value: InkLineDraft } | { ok: false; details: Record<string, string> } {
-  const details: Record<string, string> = {};
-  if (typeof x !== 'object' || x === null) return { ok: false, details: { '': 'body must be an object' } };
+export function parseInkLineDraft(x: unknown): Parsed<HandInRequest> {
+  if (typeof x !== 'object' || x === null || Array.isArray(x)) return { ok: false, details: { '': 'body must be an object' } };
   const body = x as Record<string, unknown>;
-  const pins = readPins(body['pins'], details);
-  const knots: KnotInput[] = [];
-  if (!Array.isArray(body['knots'])) details['knots'] = 'knots must be a list';
-  else if (body['knots'].length < 2) details['knots'] = 'at least two knots are needed along the pen line';
-  else if (body['knots'].length > MAX_KNOTS) details['knots'] = `at most ${MAX_KNOTS} knots`;
-  else {
-    body['knots'].forEach((raw: unknown, i: number) => {
-      const k = (raw ?? {}) as Record<string, unknown>;
-      if (!isFiniteNumber(k['xPx']) || !isFiniteNumber(k['yPx'])) details[`knots.${i}`] = 'xPx and yPx must be numbers';
-      knots.push({ xPx: k['xPx'] as number, yPx: k['yPx'] as number });
-    });
-  }
-  if (Object.keys(details).length > 0) return { ok: false, details };
-  return { ok: true, value: { pins, knots } };
+  const parsed = parseBenchWork(body, { forHandIn: true });
+  const details = parsed.ok ? {} : { ...parsed.details };
+  const version = body['draftVersion'];
+  if (version !== undefined && !(Number.isInteger(version) && (version as number) >= 1)) details['draftVersion'] = 'draftVersion must be a whole number from 1';
+  if (!parsed.ok || Object.keys(details).length > 0) return { ok: false, details };
+  return { ok: true, value: { work: parsed.value, draftVersion: (version as number | undefined) ?? null } };
+}
+
+/** What the Bench sends to autosave: the draft version it last saw (null: none yet) and the whole work. */
+export interface DraftSaveRequest {
+  version: number | null;
+  work: BenchWork;
+}
+
+export function parseDraftSave(x: unknown): Parsed<DraftSaveRequest> {
+  if (typeof x !== 'object' || x === null || Array.isArray(x)) return { ok: false, details: { '': 'body must be an object' } };
+  const body = x as Record<string, unknown>;
+  const details: Record<string, string> = {};
+  const version = body['version'];
+  if (version !== null && !(Number.isInteger(version) && (version as number) >= 1)) details['version'] = 'version must be null (a new draft) or a whole number from 1';
+  const work = parseBenchWork(body['work']);
+  if (!work.ok) for (const [key, value] of Object.entries(work.details)) details[key ? `work.${key}` : 'work'] = value;
+  if (!work.ok || Object.keys(details).length > 0) return { ok: false, details };
+  return { ok: true, value: { version: version as number | null, work: work.value } };
+}
+
+export interface DraftSaved {
+  inkLineId: string;
+  scanId: string;
+  version: number;
+  /** When the server stored this version (ISO 8601). */
+  updatedAt: string;
+}
+
+/** The caller's own ink line on one scan: the draft to resume, or the line handed in (read-only on the Bench). */
+export interface MyInkLine {
+  inkLineId: string;
+  scanId: string;
+  status: InkLineStatus;
+  version: number;
+  work: BenchWork;
+  updatedAt: string;
+  handedInAt: string | null;
+  /** What the hand-in computed; null for a draft. */
+  result: InkLineSaved | null;
+}
+
+/** A row of "My drafts" on the Desk. */
+export interface MyInkLineSummary {
+  inkLineId: string;
+  scanId: string;
+  stationName: string | null;
+  chartStart: string | null;
+  status: InkLineStatus;
+  version: number;
+  pinCount: number;
+  knotCount: number;
+  /** When the work was last saved (ISO 8601). */
+  updatedAt: string;
 }

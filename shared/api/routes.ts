@@ -22,6 +22,12 @@ export const API = {
   scanDerivativesRetry: (scanId: string) => `/api/scans/${enc(scanId)}/derivatives/retry`,
   scanPreview: (scanId: string) => `/api/scans/${enc(scanId)}/preview`,
   scanInkLines: (scanId: string) => `/api/scans/${enc(scanId)}/ink-lines`,
+  /** The caller's draft on a scan (PUT autosaves it). */
+  scanDraft: (scanId: string) => `/api/scans/${enc(scanId)}/ink-lines/draft`,
+  /** The caller's own line on a scan: the draft to resume, or the line handed in. */
+  scanMyInkLine: (scanId: string) => `/api/scans/${enc(scanId)}/ink-lines/mine`,
+  /** The caller's lines across scans, paged ("My drafts" on the Desk). */
+  myInkLines: '/api/ink-lines/mine',
   scanFollowInk: (scanId: string) => `/api/scans/${enc(scanId)}/follow-ink`,
   series: '/api/series',
   seriesCsv: '/api/series.csv',

@@ -1,3 +1,4 @@
+import { EMPTY_BENCH_WORK } from '@shared/api/bench-work';
 import fs from 'node:fs/promises';
 import request from 'supertest';
 import type { Role } from '@shared/api/roles';
@@ -33,6 +34,7 @@ describe('who may call each route', () => {
   let stationId: string;
   let chartFormId: string;
   let scanId: string;
+  let draftScanId: string;
   let instrumentId: string;
   let editableFormId: string;
   let batchId: string;
@@ -236,6 +238,20 @@ describe('who may call each route', () => {
       sideEffectCount: () => count('ink_line'),
     },
     {
+      name: 'PUT /api/scans/:scanId/ink-lines/draft',
+      roles: ['volunteer'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).put(API.scanDraft(draftScanId)), token).send({ version: null, work: EMPTY_BENCH_WORK }),
+      sideEffectCount: () => count('ink_line'),
+    },
+    {
+      name: 'GET /api/scans/:scanId/ink-lines/mine',
+      roles: ['volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.scanMyInkLine(scanId)), token),
+    },
+    { name: 'GET /api/ink-lines/mine', roles: ['volunteer'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.myInkLines), token) },
+    {
       name: 'POST /api/scans/:scanId/follow-ink',
       roles: ['volunteer'],
       successStatus: 200,
@@ -420,6 +436,7 @@ describe('who may call each route', () => {
       people.archivist.id,
     );
     scanId = scan.id;
+    draftScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: PERIOD_START });
     await context.db.updateTable('scan').set({ collection: 'ROLE', box: '1' }).where('id', '=', scanId).execute();
     // A lesson of the teacher over a traced front, so the passage has a chart region; and a live share link.
     const lessonStationId = (await createStation(context.db)).id;

@@ -1,3 +1,4 @@
+import { EMPTY_BENCH_WORK } from '@shared/api/bench-work';
 import fs from 'node:fs/promises';
 import type { InkLineDraft } from '@shared/api/ink-lines';
 import type { ChartForm } from '@shared/domain/chart-form';
@@ -49,6 +50,11 @@ export async function createTracedFrontScan(
     scan.archivistId,
   );
   await context.db.updateTable('scan').set({ status: 'ready_to_trace' }).where('id', '=', uploaded.id).execute();
-  const saved = await inkLinesService.handInInkLine(context.db, uploaded.id, frontDraft(scan.form, scan.chartStart), scan.volunteerId);
+  const saved = await inkLinesService.handInInkLine(
+    context.db,
+    uploaded.id,
+    { work: { ...EMPTY_BENCH_WORK, ...frontDraft(scan.form, scan.chartStart) }, draftVersion: null },
+    scan.volunteerId,
+  );
   return { scanId: uploaded.id, inkLineId: saved.inkLineId };
 }

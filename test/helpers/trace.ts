@@ -59,3 +59,32 @@ export function collinearDraft(form: ChartForm, chartStart: string): InkLineDraf
   const { knots } = syntheticDraft(form, chartStart);
   return { pins: [pinAt(form, chartStartMs, 24, 1000), pinAt(form, chartStartMs, 72, 1000), pinAt(form, chartStartMs, 120, 1000)], knots };
 }
+
+/** Invented errors of the corrected synthetic chart: the drum runs 20 min slow and loses 4 min a day; the pen reads 1.3 hPa high. */
+export const SYNTHETIC_ERRORS = { clockSlowMinutes: 20, clockLossMinutesPerDay: 4, instrumentHighHpa: 1.3 } as const;
+
+/**
+ * A hand-in of the synthetic chart drawn with SYNTHETIC_ERRORS, with three time marks (their feet on the line and
+ * true times) and a check reading at each: once corrected, the series is syntheticPressureHpa at true time.
+ */
+export function syntheticDraftWithErrors(form: ChartForm, chartStart: string, fromHours = 2, toHours = 40): Required<Omit<InkLineDraft, 'draftVersion' | 'step'>> {
+  const chartStartMs = Date.parse(chartStart);
+  const { clockSlowMinutes, clockLossMinutesPerDay, instrumentHighHpa } = SYNTHETIC_ERRORS;
+  const trueHoursOfChart = (hours: number) => hours + (clockSlowMinutes + (clockLossMinutesPerDay * hours) / 24) / 60;
+  const chartHoursOfTrue = (hours: number) => (hours - clockSlowMinutes / 60) / (1 + clockLossMinutesPerDay / (24 * 60));
+  const pixelAt = (chartHours: number) =>
+    readingToPixel(form, syntheticPlacement(form), { hours: chartHours, pressure: syntheticPressureHpa(trueHoursOfChart(chartHours)) + instrumentHighHpa });
+  const { pins } = syntheticDraft(form, chartStart);
+  const knots = [];
+  for (let minutes = fromHours * 60; minutes <= toHours * 60; minutes += 10) knots.push(pixelAt(minutes / 60));
+  const markHours = [8, 20, 32];
+  const iso = (hours: number) => new Date(chartStartMs + hours * MS_PER_HOUR).toISOString();
+  return {
+    pins,
+    knots,
+    timeMarks: markHours.map((hours) => ({ ...pixelAt(chartHoursOfTrue(hours)), time: iso(hours) })),
+    chartOn: null,
+    chartOff: null,
+    checkReadings: markHours.map((hours) => ({ time: iso(hours), pressureHpa: syntheticPressureHpa(hours) })),
+  };
+}

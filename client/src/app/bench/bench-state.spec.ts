@@ -100,16 +100,24 @@ describe('BenchState', () => {
     expect(state.step()).toBe('ink');
   });
 
-  it('when pins and knots are placed, then the draft holds both in scan pixels', () => {
+  it('when pins and knots are placed, then the work holds both in scan pixels, with the step', () => {
     state.setPreviewWidth(2000, 1000);
     state.pickPoint({ x: 1, y: 2 });
     state.savePin('2026-03-02T00:00:00.000Z', 29.92);
     state.chooseStep('ink');
     state.pickPoint({ x: 3, y: 4 });
 
-    const draft = state.draft();
+    const work = state.work();
 
-    expect(draft).toEqual({ pins: [{ xPx: 2, yPx: 4, time: '2026-03-02T00:00:00.000Z', pressure: 29.92 }], knots: [{ xPx: 6, yPx: 8 }] });
+    expect(work).toEqual({
+      step: 'ink',
+      pins: [{ xPx: 2, yPx: 4, time: '2026-03-02T00:00:00.000Z', pressure: 29.92 }],
+      knots: [{ xPx: 6, yPx: 8 }],
+      timeMarks: [],
+      chartOn: null,
+      chartOff: null,
+      checkReadings: [],
+    });
   });
 
   it('when Follow ink answers, then its knots replace the hand-placed ones and one undo brings those back', () => {
@@ -168,7 +176,7 @@ describe('BenchState', () => {
 
     expect(state.knots().map((knot) => knot.xPx)).toEqual([100, 110, 125, 140, 150]);
     expect(state.knots()[1].gapAfter).toBe(false);
-    expect(state.draft().knots[2]).toEqual({ xPx: 125, yPx: 54 });
+    expect(state.work().knots[2]).toEqual({ xPx: 125, yPx: 54 });
   });
 
   it('when nothing has changed, then undo does nothing', () => {
@@ -176,5 +184,38 @@ describe('BenchState', () => {
 
     expect(state.knots()).toEqual([]);
     expect(state.canUndo()).toBe(false);
+  });
+
+  it('when saved work is loaded, then the Bench shows it exactly as left and Undo starts afresh', () => {
+    state.replaceWithFollowed(FOLLOWED);
+    const work = {
+      step: 'marks' as const,
+      pins: [{ xPx: 2, yPx: 4, time: '2026-03-02T00:00:00.000Z', pressure: 1000 }],
+      knots: [{ xPx: 1, yPx: 2, confidence: 0.3, gapAfter: true }, { xPx: 3, yPx: 4, bridgeAfter: true }, { xPx: 5, yPx: 6 }],
+      timeMarks: [{ xPx: 3, yPx: 4, time: null }],
+      chartOn: '2026-03-02T01:00:00.000Z',
+      chartOff: null,
+      checkReadings: [{ time: '2026-03-02T08:00:00.000Z', pressureHpa: 1001.2 }],
+    };
+
+    state.loadWork(work);
+
+    expect(state.work()).toEqual(work);
+    expect(state.canUndo()).toBe(false);
+  });
+
+  it('when the Marks step is clicked, then a time mark is added at the click in scan pixels, in order along the chart', () => {
+    state.setPreviewWidth(2000, 1000);
+    state.chooseStep('marks');
+
+    state.pickPoint({ x: 50, y: 10 });
+    state.pickPoint({ x: 20, y: 12 });
+    state.setTimeMarkTime(1, '2026-03-02T08:00:00.000Z');
+
+    expect(state.timeMarks()).toEqual([
+      { xPx: 40, yPx: 24, time: null },
+      { xPx: 100, yPx: 20, time: '2026-03-02T08:00:00.000Z' },
+    ]);
+    expect(state.knots()).toEqual([]);
   });
 });

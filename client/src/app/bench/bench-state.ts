@@ -1,8 +1,9 @@
 import { computed, Injectable, signal } from '@angular/core';
 import type { FollowInkResult } from '@shared/api/follow-ink';
-import type { InkLineDraft, KnotInput, PinInput } from '@shared/api/ink-lines';
+import type { BenchStep, BenchWork, WorkCheckReading, WorkKnot, WorkTimeMark } from '@shared/api/bench-work';
+import type { PinInput } from '@shared/api/ink-lines';
 
-export type BenchStep = 'pin' | 'ink';
+export type { BenchStep };
 
 /** A point in full-resolution scan pixels (the master file's pixel grid). */
 export interface ScanPoint {
@@ -14,10 +15,7 @@ export interface ScanPoint {
  * A knot on the Bench. Knots found by Follow ink carry the finder's confidence (0–1) and whether the pen
  * line has a gap after them; knots placed or moved by hand have neither (they are the volunteer's word).
  */
-export interface BenchKnot extends KnotInput {
-  confidence?: number;
-  gapAfter?: boolean;
-}
+export type BenchKnot = WorkKnot;
 
 /** How many earlier knot lists Undo can go back through. */
 const UNDO_DEPTH = 50;
@@ -35,6 +33,10 @@ export class BenchState {
   // Earlier knot lists, newest last: every change to the knots pushes the list it replaced.
   private readonly knotHistory = signal<readonly (readonly BenchKnot[])[]>([]);
   private readonly pendingCrossing = signal<ScanPoint | null>(null);
+  private readonly timeMarkList = signal<readonly WorkTimeMark[]>([]);
+  private readonly chartOnValue = signal<string | null>(null);
+  private readonly chartOffValue = signal<string | null>(null);
+  private readonly checkReadingList = signal<readonly WorkCheckReading[]>([]);
   private readonly scanPxPerPreviewPxValue = signal<number | null>(null);
 
   readonly step = this.stepValue.asReadonly();
@@ -46,10 +48,60 @@ export class BenchState {
   readonly scanPxPerPreviewPx = this.scanPxPerPreviewPxValue.asReadonly();
   readonly knotCount = computed(() => this.knotList().length);
   readonly canUndo = computed(() => this.knotHistory().length > 0);
-  readonly draft = computed<InkLineDraft>(() => ({
+  readonly timeMarks = this.timeMarkList.asReadonly();
+  readonly chartOn = this.chartOnValue.asReadonly();
+  readonly chartOff = this.chartOffValue.asReadonly();
+  readonly checkReadings = this.checkReadingList.asReadonly();
+  /** Everything done on the chart, as autosaved and handed in. */
+  readonly work = computed<BenchWork>(() => ({
+    step: this.stepValue(),
     pins: [...this.pinList()],
-    knots: this.knotList().map((knot) => ({ xPx: knot.xPx, yPx: knot.yPx })),
+    knots: [...this.knotList()],
+    timeMarks: [...this.timeMarkList()],
+    chartOn: this.chartOnValue(),
+    chartOff: this.chartOffValue(),
+    checkReadings: [...this.checkReadingList()],
   }));
+
+  /** Puts saved work back on the Bench exactly as it was left (Undo starts afresh). */
+  loadWork(work: BenchWork): void {
+    this.stepValue.set(work.step);
+    this.pinList.set(work.pins);
+    this.knotList.set(work.knots);
+    this.knotHistory.set([]);
+    this.timeMarkList.set(work.timeMarks);
+    this.chartOnValue.set(work.chartOn);
+    this.chartOffValue.set(work.chartOff);
+    this.checkReadingList.set(work.checkReadings);
+    this.pendingCrossing.set(null);
+  }
+
+  /** A click in the Marks step: a time mark's foot on the line (scan px), its true time still to give. */
+  addTimeMark(point: ScanPoint): void {
+    this.timeMarkList.update((marks) => [...marks, { xPx: point.xPx, yPx: point.yPx, time: null }].sort((a, b) => a.xPx - b.xPx));
+  }
+
+  setTimeMarkTime(index: number, time: string | null): void {
+    this.timeMarkList.update((marks) => marks.map((mark, i) => (i === index ? { ...mark, time } : mark)));
+  }
+
+  deleteTimeMark(index: number): void {
+    this.timeMarkList.update((marks) => marks.filter((_, i) => i !== index));
+  }
+
+  /** Chart on / chart off as written on the chart, as UTC instants (null: not given). */
+  setChartOnOff(chartOn: string | null, chartOff: string | null): void {
+    this.chartOnValue.set(chartOn);
+    this.chartOffValue.set(chartOff);
+  }
+
+  addCheckReading(reading: WorkCheckReading): void {
+    this.checkReadingList.update((readings) => [...readings, reading].sort((a, b) => Date.parse(a.time) - Date.parse(b.time)));
+  }
+
+  deleteCheckReading(index: number): void {
+    this.checkReadingList.update((readings) => readings.filter((_, i) => i !== index));
+  }
 
   chooseStep(step: BenchStep): void {
     this.stepValue.set(step);
@@ -69,11 +121,12 @@ export class BenchState {
     return { xPx: previewPoint.x * scale, yPx: previewPoint.y * scale };
   }
 
-  /** A click on the preview: picks the next pin's crossing in the Pin step, adds a knot in the Ink step. */
+  /** A click on the preview: picks the next pin's crossing (Pin), adds a knot (Ink) or a time mark (Marks). */
   pickPoint(previewPoint: { x: number; y: number }): void {
     const point = this.toScanPoint(previewPoint);
     if (this.stepValue() === 'pin') this.pendingCrossing.set(point);
-    else this.addKnot(point);
+    else if (this.stepValue() === 'ink') this.addKnot(point);
+    else if (this.stepValue() === 'marks') this.addTimeMark(point);
   }
 
   /**

@@ -1,11 +1,11 @@
 import { DatePipe, KeyValuePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, input, signal, untracked } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { type InkLineSaved, parseInkLineDraft } from '@shared/api/ink-lines';
+import { type InkLineSaved, type MyInkLine, parseInkLineDraft } from '@shared/api/ink-lines';
 import type { ScanDetail } from '@shared/api/scans';
 import { catchError, map, of, switchMap } from 'rxjs';
 
@@ -14,10 +14,13 @@ import { ScansApi } from '../../core/api/scans-api';
 import { ApiError } from '../../core/http/api-error';
 import { ObjectUrlHolder } from '../../shared/object-url/object-url';
 import { BenchState, type BenchStep } from '../bench-state';
+import { DraftSaver } from '../draft-saver';
 import { HandInResult } from '../hand-in-result/hand-in-result';
 import { InkLinesApi } from '../ink-lines-api';
 import { InkStep } from '../ink-step/ink-step';
+import { MarksStep } from '../marks-step/marks-step';
 import { PinStep } from '../pin-step/pin-step';
+import { ProofStep } from '../proof-step/proof-step';
 import { ScanStage } from '../scan-stage/scan-stage';
 import type { Size } from '../scan-stage/view-transform';
 
@@ -29,11 +32,15 @@ interface HandInProblem {
   details: Record<string, string>;
 }
 
-/** The tracing editor for one scan: the scan stage, the Pin and Ink steps, and Hand in. */
+/**
+ * The tracing editor for one scan: the scan stage, the Pin, Ink, Marks and Proof steps, and Hand in. The work
+ * is the volunteer's draft on the server: it resumes as left and every change autosaves. A chart the volunteer
+ * has handed in opens read-only with its result.
+ */
 @Component({
   selector: 'isl-bench-page',
-  imports: [DatePipe, KeyValuePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ScanStage, PinStep, InkStep, HandInResult],
-  providers: [BenchState],
+  imports: [DatePipe, KeyValuePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ScanStage, PinStep, InkStep, MarksStep, ProofStep, HandInResult],
+  providers: [BenchState, DraftSaver],
   templateUrl: './bench-page.html',
   styleUrl: './bench-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -44,6 +51,7 @@ export class BenchPage {
   private readonly destroyRef = inject(DestroyRef);
   private readonly previewUrls = new ObjectUrlHolder(this.destroyRef);
   protected readonly state = inject(BenchState);
+  protected readonly saver = inject(DraftSaver);
 
   /** From the route parameter. */
   readonly scanId = input.required<string>();
@@ -75,6 +83,52 @@ export class BenchPage {
   private readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
   protected readonly chartForm = computed(() => this.chartForms().find((form) => form.id === this.scan()?.chartFormId) ?? null);
 
+  /** The volunteer's own line as the server had it when the Bench opened; undefined while loading. */
+  protected readonly mine = signal<MyInkLine | null | undefined>(undefined);
+  protected readonly loadFailure = signal<string | null>(null);
+  /** Handed in (by this page or before): the Bench shows the work and its result, and takes no changes. */
+  protected readonly isReadOnly = computed(() => {
+    const mine = this.mine();
+    return this.saved() !== null || (mine !== null && mine !== undefined && mine.status !== 'draft');
+  });
+  protected readonly steps: readonly { step: BenchStep; label: string; icon: string }[] = [
+    { step: 'pin', label: 'Pin', icon: 'push_pin' },
+    { step: 'ink', label: 'Ink', icon: 'gesture' },
+    { step: 'marks', label: 'Marks', icon: 'schedule' },
+    { step: 'proof', label: 'Proof', icon: 'fact_check' },
+  ];
+
+  constructor() {
+    toObservable(this.scanId)
+      .pipe(
+        switchMap((scanId) => this.inkLinesApi.mine(scanId).pipe(map((answer) => ({ scanId, inkLine: answer.inkLine })))),
+        takeUntilDestroyed(this.destroyRef),
+      )
+      .subscribe({
+        next: ({ scanId, inkLine }) => {
+          if (inkLine) this.state.loadWork(inkLine.work);
+          if (inkLine?.result && inkLine.status !== 'draft') this.saved.set(inkLine.result);
+          // Only the volunteer's own draft is saved over; a handed-in line is read-only.
+          if (!inkLine || inkLine.status === 'draft') this.saver.start(scanId, inkLine?.version ?? null, inkLine?.updatedAt ?? null);
+          this.mine.set(inkLine);
+        },
+        error: (error: unknown) => this.loadFailure.set(error instanceof ApiError ? error.message : 'Your draft could not be loaded.'),
+      });
+    // Autosave: every change to the work after the draft was loaded.
+    let isFirstRun = true;
+    effect(() => {
+      const work = this.state.work();
+      const mine = this.mine();
+      if (mine === undefined || untracked(() => this.isReadOnly())) return;
+      if (isFirstRun) {
+        // The work just loaded (or the empty Bench): nothing to save yet.
+        isFirstRun = false;
+        return;
+      }
+      untracked(() => this.saver.changed(work));
+    });
+  }
+
   protected readonly isHandingIn = signal(false);
   protected readonly saved = signal<InkLineSaved | null>(null);
   protected readonly problem = signal<HandInProblem | null>(null);
@@ -89,19 +143,20 @@ export class BenchPage {
   }
 
   protected pickPoint(point: { x: number; y: number }): void {
-    if (this.state.scanPxPerPreviewPx() !== null) this.state.pickPoint(point);
+    if (this.state.scanPxPerPreviewPx() !== null && !this.isReadOnly()) this.state.pickPoint(point);
   }
 
   protected moveKnot(move: { index: number; point: { x: number; y: number } }): void {
-    if (this.state.scanPxPerPreviewPx() !== null) this.state.moveKnot(move.index, move.point);
+    if (this.state.scanPxPerPreviewPx() !== null && !this.isReadOnly()) this.state.moveKnot(move.index, move.point);
   }
 
   protected deleteKnot(index: number): void {
-    this.state.deleteKnot(index);
+    if (!this.isReadOnly()) this.state.deleteKnot(index);
   }
 
-  protected handIn(): void {
-    const parsed = parseInkLineDraft(this.state.draft());
+  protected async handIn(): Promise<void> {
+    const work = this.state.work();
+    const parsed = parseInkLineDraft(work);
     this.saved.set(null);
     if (!parsed.ok) {
       this.problem.set({ message: 'Not ready to hand in yet:', details: parsed.details });
@@ -109,12 +164,16 @@ export class BenchPage {
     }
     this.problem.set(null);
     this.isHandingIn.set(true);
+    // The draft on the server must be the one handed in: the last change is saved first, then its version sent.
+    await this.saver.flush();
+    const draftVersion = this.saver.currentVersion();
     this.inkLinesApi
-      .handIn(this.scanId(), parsed.value)
+      .handIn(this.scanId(), { ...work, ...(draftVersion === null ? {} : { draftVersion }) })
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe({
         next: (saved) => {
           this.isHandingIn.set(false);
+          this.saver.stop();
           this.saved.set(saved);
         },
         error: (error: unknown) => {

@@ -1,5 +1,5 @@
 import { DecimalPipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, effect, ElementRef, inject, input, viewChild } from '@angular/core';
 import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -27,6 +27,15 @@ export class PinStep {
 
   /** The chart form's printed unit, the unit pins are typed in. */
   readonly pressureUnit = input.required<PressureUnit>();
+
+  private readonly timeInput = viewChild<ElementRef<HTMLInputElement>>('timeInput');
+
+  constructor() {
+    // Focus goes to the time field as soon as a crossing is picked, so the volunteer types at once; Enter saves.
+    effect(() => {
+      if (this.state.pendingPin()) this.timeInput()?.nativeElement.focus();
+    });
+  }
 
   protected readonly form = inject(NonNullableFormBuilder).group({
     time: ['', [Validators.required, utcInstantValidator]],

@@ -1,4 +1,4 @@
-import { type RegularPoint, resampleRegular, type ResampleOptions, type TimedPressure } from '@shared/domain/resample';
+import { type RegularPoint, resampleRegular, type ResampleOptions, type TimedPressure } from '../resample';
 
 /** A sample of the pen line with the stretch of unbroken ink it belongs to (stretches are split at flagged gaps). */
 export interface StretchSample extends TimedPressure {
