@@ -16,10 +16,10 @@ function settle(): Promise<void> {
 }
 
 describe('missingForTracing', () => {
-  it('when a scan arrived without metadata and its tiles are still being made, then all four needs are named', () => {
+  it('when a scan arrived without metadata and its derivatives are still being made, then all four needs are named', () => {
     const scan = scanDetailForTest({ stationId: null, chartFormId: null, chartStart: null, derivativeState: 'working' });
 
-    expect(missingForTracing(scan)).toEqual(['station', 'chart form', 'chart start', 'image tiles']);
+    expect(missingForTracing(scan)).toEqual(['station', 'chart form', 'chart start', 'derivatives']);
   });
 
   it('when everything is in place, then nothing is missing', () => {

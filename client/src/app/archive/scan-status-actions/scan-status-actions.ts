@@ -22,7 +22,7 @@ export function missingForTracing(scan: ScanDetail): string[] {
   if (!scan.stationId) missing.push('station');
   if (!scan.chartFormId) missing.push('chart form');
   if (!scan.chartStart) missing.push('chart start');
-  if (scan.derivativeState !== 'ready') missing.push('image tiles');
+  if (scan.derivativeState !== 'ready') missing.push('derivatives');
   return missing;
 }
 
