@@ -1,16 +1,17 @@
 import type { PageQuery } from '@shared/api/paging';
-import type { ScanAuditAction, ScanAuditEntry } from '@shared/api/scans';
+import type { ScanChangeAction, ScanChangeLogEntry } from '@shared/api/scans';
 import type { DbOrTrx } from '../db/database';
+import { changeLogNames, namesForEntry } from './change-log-names';
 import type { AuditChanges } from './scan-audit.table';
 
 export interface NewScanAudit {
   scanId: string;
   personId: string;
-  action: ScanAuditAction;
+  action: ScanChangeAction;
   changes: AuditChanges;
 }
 
-/** Writes audit rows; call inside the transaction that makes the change, so both land or neither does. */
+/** Writes change-log rows (table scan_audit); call inside the transaction that makes the change, so both land or neither does. */
 export async function insertScanAudit(db: DbOrTrx, ...entries: NewScanAudit[]): Promise<void> {
   if (entries.length === 0) return;
   await db
@@ -19,8 +20,8 @@ export async function insertScanAudit(db: DbOrTrx, ...entries: NewScanAudit[]): 
     .execute();
 }
 
-/** A scan's audit trail, newest first. */
-export async function listScanAudit(db: DbOrTrx, scanId: string, query: PageQuery): Promise<{ items: ScanAuditEntry[]; total: number }> {
+/** A scan's change log, newest first, with the names of the registers it mentions. */
+export async function listScanChangeLog(db: DbOrTrx, scanId: string, query: PageQuery): Promise<{ items: ScanChangeLogEntry[]; total: number }> {
   const rows = await db
     .selectFrom('scan_audit')
     .innerJoin('person', 'person.id', 'scan_audit.person_id')
@@ -36,8 +37,16 @@ export async function listScanAudit(db: DbOrTrx, scanId: string, query: PageQuer
     .select((eb) => eb.fn.countAll<number>().as('total'))
     .where('scan_id', '=', scanId)
     .executeTakeFirstOrThrow();
+  const names = await changeLogNames(db, rows.map((row) => row.changes));
   return {
-    items: rows.map((row) => ({ id: row.id, at: row.at.toISOString(), personName: row.display_name, action: row.action, changes: row.changes })),
+    items: rows.map((row) => ({
+      id: row.id,
+      at: row.at.toISOString(),
+      personName: row.display_name,
+      action: row.action,
+      changes: row.changes,
+      names: namesForEntry(row.changes, names),
+    })),
     total,
   };
 }

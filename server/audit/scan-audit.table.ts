@@ -1,5 +1,5 @@
 import type { ColumnType, Generated } from 'kysely';
-import type { ScanAuditAction } from '@shared/api/scans';
+import type { ScanChangeAction } from '@shared/api/scans';
 
 export type AuditChanges = Record<string, { before: unknown; after: unknown }>;
 
@@ -8,7 +8,7 @@ export interface ScanAuditTable {
   scan_id: string;
   person_id: string;
   at: ColumnType<Date, Date | undefined, never>;
-  action: ScanAuditAction;
+  action: ScanChangeAction;
   /** jsonb `{ field: { before, after } }`; written as a JSON string. */
   changes: ColumnType<AuditChanges, string, never>;
 }

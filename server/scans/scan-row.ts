@@ -83,6 +83,7 @@ export function toScanSummary(row: ScanRow): ScanSummary {
     chartOn: iso(row.chart_on),
     chartOff: iso(row.chart_off),
     tags: row.tags,
+    version: row.version,
   };
 }
 
@@ -105,6 +106,5 @@ export function toScanDetail(row: ScanRow): ScanDetail {
     orientation: row.orientation,
     derivativeError: row.derivative_error,
     derivativeAttempts: row.derivative_attempts,
-    version: row.version,
   };
 }

@@ -1,7 +1,8 @@
 import { Router, type Request, type Response } from 'express';
 import type { Page } from '@shared/api/paging';
+import { parseScanBulkEditInput } from '@shared/api/parse-scan-bulk-edit';
 import { parseScanMetadataInput, parseScanStatusChange } from '@shared/api/parse-scan-metadata';
-import { SCAN_SORT_KEYS, type ScanAuditEntry, type ScanDetail, type ScanStatusCounts, type ScanSummary } from '@shared/api/scans';
+import { SCAN_SORT_KEYS, type ScanBulkEditResult, type ScanChangeLogEntry, type ScanDetail, type ScanStatusCounts, type ScanSummary } from '@shared/api/scans';
 import type { AppDeps } from '../app-deps';
 import { requireRoles, signedInPerson } from '../auth/require-roles';
 import { HTTP } from '../errors/app-error';
@@ -9,6 +10,7 @@ import { valueOrThrow } from '../http/parse-body';
 import { readPageQuery } from '../http/parse-query';
 import { parseScanFilter, parseScanId, parseUploadFields } from './parse-scan-input';
 import { receiveScanFile, uploadedFile } from './scan-upload';
+import { bulkEditScans } from './scan-bulk-edit.service';
 import * as scansService from './scans.service';
 
 /** Withdrawn scans are the archivist's business: a volunteer neither lists nor opens them (as the Desk never offers them). */
@@ -40,6 +42,11 @@ export function scansRoutes(deps: AppDeps): Router {
     res.status(HTTP.created).json(await scansService.uploadScan(deps, received, fields, signedInPerson(req.user).id));
   });
 
+  router.post('/bulk-edit', mayEdit, async (req, res: Response<ScanBulkEditResult>) => {
+    const input = valueOrThrow(parseScanBulkEditInput(req.body), 'The bulk edit has invalid fields.');
+    res.json(await bulkEditScans(db, input, signedInPerson(req.user).id));
+  });
+
   router.get('/:scanId', mayRead, async (req, res: Response<ScanDetail>) => {
     res.json(await scansService.getScan(db, parseScanId(req.params.scanId), { hideWithdrawn: !seesWithdrawn(req) }));
   });
@@ -56,11 +63,11 @@ export function scansRoutes(deps: AppDeps): Router {
     res.json(await scansService.changeScanStatus(db, scanId, change, signedInPerson(req.user).id));
   });
 
-  router.get('/:scanId/audit', mayEdit, async (req, res: Response<Page<ScanAuditEntry>>) => {
+  router.get('/:scanId/change-log', mayEdit, async (req, res: Response<Page<ScanChangeLogEntry>>) => {
     const scanId = parseScanId(req.params.scanId);
     // Newest first, always: the trail has no other sort.
     const query = readPageQuery(req.query, [] as const);
-    res.json(await scansService.listScanAudit(db, scanId, query));
+    res.json(await scansService.listScanChangeLog(db, scanId, query));
   });
 
   router.post('/:scanId/derivatives/retry', mayEdit, async (req, res: Response<ScanDetail>) => {

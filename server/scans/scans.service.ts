@@ -1,6 +1,6 @@
 import fs from 'node:fs/promises';
 import type { Page, PageQuery } from '@shared/api/paging';
-import type { ScanAuditEntry, ScanDetail, ScanMetadataInput, ScanSortKey, ScanStatusChange, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
+import type { ScanChangeLogEntry, ScanDetail, ScanMetadataInput, ScanSortKey, ScanStatusChange, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
 import { SCAN_STATUS_LABELS } from '@shared/api/scans';
 import * as auditRepository from '../audit/scan-audit.repository';
 import type { Db, DbOrTrx } from '../db/database';
@@ -121,9 +121,9 @@ export async function changeScanStatus(db: Db, scanId: string, change: ScanStatu
   });
 }
 
-export async function listScanAudit(db: Db, scanId: string, query: PageQuery): Promise<Page<ScanAuditEntry>> {
+export async function listScanChangeLog(db: Db, scanId: string, query: PageQuery): Promise<Page<ScanChangeLogEntry>> {
   await getScan(db, scanId);
-  const { items, total } = await auditRepository.listScanAudit(db, scanId, query);
+  const { items, total } = await auditRepository.listScanChangeLog(db, scanId, query);
   return { items, total, page: query.page, pageSize: query.pageSize };
 }
 

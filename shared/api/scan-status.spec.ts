@@ -29,7 +29,7 @@ describe('missingForTracing', () => {
     const missing = missingForTracing({ stationId: null, chartFormId: null, chartStart: null, derivativeState: 'working' });
 
     expect(missing).toEqual(['stationId', 'chartFormId', 'chartStart', 'derivativeState']);
-    expect(missing.map((need) => TRACING_NEED_LABELS[need])).toEqual(['station', 'chart form', 'chart start', 'image tiles']);
+    expect(missing.map((need) => TRACING_NEED_LABELS[need])).toEqual(['station', 'chart form', 'chart start', 'derivatives']);
   });
 
   it('when everything is in place, then nothing is missing', () => {

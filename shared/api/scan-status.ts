@@ -24,7 +24,7 @@ export const TRACING_NEED_LABELS: Record<TracingNeed, string> = {
   stationId: 'station',
   chartFormId: 'chart form',
   chartStart: 'chart start',
-  derivativeState: 'image tiles',
+  derivativeState: 'derivatives',
 };
 
 /** What a scan lacks before volunteers may trace it, in a fixed order (empty when nothing). */

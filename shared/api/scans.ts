@@ -49,6 +49,8 @@ export interface ScanSummary {
   chartOff: string | null;
   /** Free tags, lower case. */
   tags: string[];
+  /** Optimistic-edit counter; send it back with a PATCH or a bulk edit. */
+  version: number;
 }
 
 /** Everything the catalogue knows about one scan. */
@@ -81,8 +83,6 @@ export interface ScanDetail extends ScanSummary {
   derivativeError: string | null;
   /** Derivative job attempts so far. */
   derivativeAttempts: number;
-  /** Optimistic-edit counter; send it back with a PATCH. */
-  version: number;
 }
 
 /** Body of PATCH /api/scans/:id: the catalogue fields to change plus the version last read (stale → 409 version_conflict). */
@@ -116,18 +116,47 @@ export interface ScanStatusChange {
   reason?: string;
 }
 
-/** What an audit row records. */
-export const SCAN_AUDIT_ACTIONS = ['upload', 'edit', 'status', 'inventory'] as const;
-export type ScanAuditAction = (typeof SCAN_AUDIT_ACTIONS)[number];
+/** Most scans one bulk edit may change (a large intake batch). */
+export const MAX_BULK_EDIT_SCANS = 500;
 
-/** One audit row: who changed what, when; `changes` maps a ScanDetail field name to its before and after values. */
-export interface ScanAuditEntry {
+/**
+ * Body of POST /api/scans/bulk-edit: the same fields set on many scans at once, each scan at the version the
+ * archivist read, and a chart start per scan (read from its file name, previewed before it is sent). Absent
+ * fields are left alone; `addTags` are added to each scan's own tags.
+ */
+export interface ScanBulkEditInput {
+  scans: { id: string; version: number; chartStart?: string | null }[];
+  set: {
+    stationId?: string | null;
+    instrumentId?: string | null;
+    chartFormId?: string | null;
+    box?: string;
+    addTags?: string[];
+  };
+}
+
+/** Answer of a bulk edit: every scan as it now is. */
+export interface ScanBulkEditResult {
+  items: ScanDetail[];
+}
+
+/** What a change-log entry records. */
+export const SCAN_CHANGE_ACTIONS = ['upload', 'edit', 'status', 'inventory'] as const;
+export type ScanChangeAction = (typeof SCAN_CHANGE_ACTIONS)[number];
+
+/**
+ * One change-log entry: who changed what, when; `changes` maps a ScanDetail field name to its before and
+ * after values. `names` gives the display name of every station, instrument, chart form and intake batch id
+ * the entry mentions, so the log reads in names and not in ids.
+ */
+export interface ScanChangeLogEntry {
   id: string;
   /** ISO 8601 UTC. */
   at: string;
   personName: string;
-  action: ScanAuditAction;
+  action: ScanChangeAction;
   changes: Record<string, { before: unknown; after: unknown }>;
+  names: Record<string, string>;
 }
 
 /** Answer of GET /api/scans/status-counts: scans per status under the same filters as the catalogue. */

@@ -14,6 +14,9 @@ import { createTestContext, type TestContext, truncateTables } from '../helpers/
 import { createTracedFrontScan } from '../helpers/lesson-fixtures';
 import { syntheticDraft } from '../helpers/trace';
 
+// The fixtures of every route are made once in beforeAll; on a shared, busy machine that takes longer than 5 s.
+jest.setTimeout(60_000);
+
 const PERIOD_START = '2026-03-02T00:00:00.000Z';
 
 // The set-up uploads a scan and traces a front; the password routes hash with argon2id: slow on a loaded machine.
@@ -158,12 +161,19 @@ describe('who may call each route', () => {
       call: async (token) => withToken(request(context.app).patch(API.scan(scanId)), token).send({ version: await versionOf('scan', scanId), conditionNotes: 'torn corner' }),
     },
     {
+      name: 'POST /api/scans/bulk-edit',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) =>
+        withToken(request(context.app).post(API.scanBulkEdit), token).send({ scans: [{ id: scanId, version: await versionOf('scan', scanId) }], set: { addTags: ['roles'] } }),
+    },
+    {
       name: 'POST /api/scans/:scanId/status',
       roles: ['archivist'],
       successStatus: 200,
       call: (token) => withToken(request(context.app).post(API.scanStatus(statusScanId)), token).send({ status: 'withdrawn', reason: 'duplicate chart' }),
     },
-    { name: 'GET /api/scans/:scanId/audit', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.scanAudit(scanId)), token) },
+    { name: 'GET /api/scans/:scanId/change-log', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.scanChangeLog(scanId)), token) },
     {
       name: 'POST /api/scans/:scanId/derivatives/retry',
       roles: ['archivist'],

@@ -1,6 +1,6 @@
 import request from 'supertest';
 import { API } from '@shared/api/routes';
-import type { ScanAuditEntry, ScanDetail, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
+import type { ScanChangeLogEntry, ScanDetail, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
 import { createChartForm, createPerson, createScanRow, createStation, type TestPerson } from '../helpers/factories';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 
@@ -103,7 +103,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
     });
   });
 
-  describe('metadata, status and audit', () => {
+  describe('metadata, status and change log', () => {
     let stationId: string;
     let chartFormId: string;
     let scanId: string;
@@ -122,9 +122,9 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
 
       expect(response.status).toBe(200);
       expect(response.body).toMatchObject<Partial<ScanDetail>>({ stationId, chartFormId, chartStart: '1931-03-02T07:00:00.000Z', observer: 'A. Q.', tags: ['gale', 'storm'], box: '14', dpi: 300, version: 2 });
-      const audit = await asArchivist(request(context.app).get(API.scanAudit(scanId)));
+      const audit = await asArchivist(request(context.app).get(API.scanChangeLog(scanId)));
       expect(audit.body.total).toBe(1);
-      const [entry] = audit.body.items as ScanAuditEntry[];
+      const [entry] = audit.body.items as ScanChangeLogEntry[];
       expect(entry).toMatchObject({ action: 'edit', personName: expect.stringContaining('Test Person') });
       expect(entry.changes).toEqual({
         stationId: { before: null, after: stationId },
@@ -135,6 +135,9 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
         box: { before: '', after: '14' },
         dpi: { before: null, after: 300 },
       });
+      const station = await context.db.selectFrom('station').select('name').where('id', '=', stationId).executeTakeFirstOrThrow();
+      const form = await context.db.selectFrom('chart_form').select('name').where('id', '=', chartFormId).executeTakeFirstOrThrow();
+      expect(entry.names).toEqual({ [stationId]: station.name, [chartFormId]: form.name });
     });
 
     it('when two archivists edit from the same version, then the second gets 409 version_conflict and no audit row', async () => {
@@ -178,7 +181,7 @@ describe('scan catalogue: filters, counts, metadata, status and audit', () => {
 
       expect(response.status).toBe(200);
       expect(response.body).toMatchObject({ status: 'ready_to_trace', version: 3 });
-      const audit = (await asArchivist(request(context.app).get(API.scanAudit(scanId)))).body.items as ScanAuditEntry[];
+      const audit = (await asArchivist(request(context.app).get(API.scanChangeLog(scanId)))).body.items as ScanChangeLogEntry[];
       expect(audit.map((entry) => entry.action)).toEqual(['status', 'edit']);
       expect(audit[0].changes).toEqual({ status: { before: 'received', after: 'ready_to_trace' } });
     });

@@ -3,7 +3,7 @@
  * The archivist's day through the real UI: a folder of mixed files (PNG, JPEG, a three-page TIFF, a two-page
  * PDF, a text file renamed .png, a second copy of the PNG) and the box inventory go through Intake to a
  * batch summary, the inventory fills the scans' metadata, the catalogue is filtered by station, date range
- * and status, and one scan opens in deep zoom with its chart form's grid laid over it. Every file is made
+ * and status, and one scan opens in the close view with its chart form's grid laid over it. Every file is made
  * here at test time (sharp and a hand-written PDF); stations, boxes and dates are invented.
  */
 import { mkdirSync, rmSync, writeFileSync } from 'node:fs';
@@ -122,7 +122,7 @@ async function waitForBatchDerivatives(baseUrl: string, batchId: string): Promis
   }
 }
 
-describe('an intake batch from a folder to a searchable catalogue with deep zoom', () => {
+describe('an intake batch from a folder to a searchable catalogue with the close view', () => {
   let workDir: string;
   let server: RunningServer;
   let chromium: BrowserSession;
@@ -142,7 +142,7 @@ describe('an intake batch from a folder to a searchable catalogue with deep zoom
     rmSync(workDir, { recursive: true, force: true });
   });
 
-  it('when an archivist sends a box folder and its inventory, then the catalogue lists, filters and opens its scans in deep zoom', async () => {
+  it('when an archivist sends a box folder and its inventory, then the catalogue lists, filters and opens its scans in the close view', async () => {
     // Arrange: the folder as a scanner and an archivist would leave it.
     const folder = await writeBoxFolder(workDir);
     const page = await chromium.browser.newPage({ viewport: { width: 1500, height: 1000 } });
@@ -227,13 +227,13 @@ describe('an intake batch from a folder to a searchable catalogue with deep zoom
     expect(await page.getByTestId('catalogue-row').first().textContent()).toContain('kro-1931-w10.png');
     expect(new URL(page.url()).searchParams.get('q')).toBe('gale');
 
-    // Act 4: that scan opens in deep zoom once the worker has made its tiles, with the chart form's grid over it.
+    // Act 4: that scan opens in the close view once the worker has made its tiles, with the chart form's grid over it.
     await page.getByTestId('catalogue-row').first().getByTestId('catalogue-open').click();
     await page.locator('[data-testid="derivative-state"][data-state="ready"]').waitFor({ timeout: 120_000 });
-    await page.locator('[data-testid="deep-zoom"][data-open="true"]').waitFor({ timeout: 60_000 });
-    await page.waitForFunction(() => Number(document.querySelector('[data-testid="deep-zoom"]')?.getAttribute('data-tiles-drawn') ?? 0) > 0, null, { timeout: 60_000 });
+    await page.locator('[data-testid="close-view"][data-open="true"]').waitFor({ timeout: 60_000 });
+    await page.waitForFunction(() => Number(document.querySelector('[data-testid="close-view"]')?.getAttribute('data-tiles-drawn') ?? 0) > 0, null, { timeout: 60_000 });
     const paintedShare = await page.evaluate(() => {
-      const canvas = document.querySelector<HTMLCanvasElement>('[data-testid="deep-zoom"] canvas');
+      const canvas = document.querySelector<HTMLCanvasElement>('[data-testid="close-view"] canvas');
       const context = canvas?.getContext('2d');
       if (!canvas || !context) return 0;
       const { data } = context.getImageData(0, 0, canvas.width, canvas.height);

@@ -5,34 +5,20 @@
  * opens in a fresh browser context with no account, the answer hidden until revealed, the page passes axe-core
  * and prints to an A4 PDF of one or two pages holding the lesson's text but not the answer.
  */
-import { readFileSync, rmSync } from 'node:fs';
-import { join, resolve } from 'node:path';
-import type { Page } from 'playwright-core';
+import { rmSync } from 'node:fs';
+import { join } from 'node:path';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import type { RunningServer } from '../../server/server';
+import { seriousAxeViolations } from '../helpers/axe';
 import { chooseOption, launchChromium, signIn, type BrowserSession } from '../helpers/browser';
 import { startE2eServer } from '../helpers/e2e-server';
 import { readPdfText } from '../helpers/pdf-text';
 
-const ROOT = resolve(__dirname, '../..');
-const AXE = readFileSync(join(ROOT, 'node_modules/axe-core/axe.min.js'), 'utf8');
 const NOTE_TEXT = 'The pressure bottoms out, then climbs fast behind the front.';
 const QUESTION = 'At what time did the front pass Kestrel Ridge?';
 const ANSWER = 'Near the lowest pressure, on Tuesday afternoon.';
 
 jest.setTimeout(240_000);
-
-/** axe-core's serious and critical violations on the page (WCAG 2 A and AA rules), as "rule: target" lines. */
-async function seriousViolations(page: Page): Promise<string[]> {
-  // Evaluated through the debugging protocol: the app's Content-Security-Policy refuses inline scripts.
-  await page.evaluate(AXE);
-  const violations = await page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (context: unknown, options: unknown) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa'] } });
-    return result.violations.map((v) => ({ id: v.id, impact: v.impact, targets: v.nodes.map((n) => n.target.join(' ')) }));
-  });
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.targets.join(', ')}`);
-}
 
 describe('a lesson from the demo front to a shared, printed handout', () => {
   let workDir: string;
@@ -108,7 +94,7 @@ describe('a lesson from the demo front to a shared, printed handout', () => {
     expect(await teacher.getByTestId('chart-mark').count()).toBe(1);
     expect(await teacher.getByTestId('plot-note').count()).toBe(1);
     expect(link).toMatch(new RegExp(`^${server.url}/shared/[A-Za-z0-9_-]{43}$`));
-    expect(await seriousViolations(teacher)).toEqual([]);
+    expect(await seriousAxeViolations(teacher)).toEqual([]);
 
     // Act 4: a pupil on a phone, in a fresh context without any sign-in.
     const pupilContext = await chromium.browser.newContext({ viewport: { width: 390, height: 844 } });
@@ -134,7 +120,7 @@ describe('a lesson from the demo front to a shared, printed handout', () => {
     expect(await pupil.getByTestId('chart-region-image').getAttribute('alt')).toContain(NOTE_TEXT);
     const pageWidth = await pupil.evaluate(() => document.documentElement.scrollWidth);
     expect(pageWidth).toBeLessThanOrEqual(390);
-    expect(await seriousViolations(pupil)).toEqual([]);
+    expect(await seriousAxeViolations(pupil)).toEqual([]);
     await pupil.getByTestId('lesson-view-reveal').click();
     expect(await pupil.getByTestId('lesson-view-answer').textContent()).toBe(ANSWER);
 

@@ -36,8 +36,10 @@ export async function signIn(page: Page, baseUrl: string, email: string, passwor
   await page.getByTestId('sign-out').waitFor();
 }
 
+/** Signs out through the toolbar, confirming in the dialog that asks first. */
 export async function signOut(page: Page): Promise<void> {
   await page.getByTestId('sign-out').click();
+  await page.getByTestId('confirm-sign-out').click();
   await page.getByTestId('sign-in').waitFor();
 }
 

@@ -98,7 +98,7 @@ describe('Catalogue', () => {
     request.flush(pageOf(0, 0, 0));
   });
 
-  it('when some rows wait for their image tiles, then the page is asked for again quietly until they are ready', async () => {
+  it('when some rows wait for their derivatives, then the page is asked for again quietly until they are ready', async () => {
     jest.useFakeTimers({ advanceTimers: true });
     const fixture = TestBed.createComponent(Catalogue);
     await fixture.whenStable();

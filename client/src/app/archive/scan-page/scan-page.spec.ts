@@ -9,6 +9,9 @@ import { ScanPage } from './scan-page';
 
 const EMPTY_PAGE = { items: [], total: 0, page: 0, pageSize: 200 };
 
+// The page pulls in the close view, tabs and forms: its first render takes several seconds on a busy machine.
+jest.setTimeout(30_000);
+
 describe('ScanPage', () => {
   let controller: HttpTestingController;
 

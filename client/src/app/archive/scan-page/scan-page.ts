@@ -16,8 +16,8 @@ import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ScansApi } from '../../core/api/scans-api';
 import { ApiError } from '../../core/http/api-error';
 import { ScanStatusChip } from '../../shared/scan-status-chip/scan-status-chip';
-import { DeepZoom } from '../deep-zoom/deep-zoom';
-import { ScanAudit } from '../scan-audit/scan-audit';
+import { CloseView } from '../close-view/close-view';
+import { ScanChangeLog } from '../scan-change-log/scan-change-log';
 import { ScanMetadataForm } from '../scan-metadata-form/scan-metadata-form';
 import { ScanStatusActions } from '../scan-status-actions/scan-status-actions';
 
@@ -30,8 +30,8 @@ interface ScanView {
 }
 
 /**
- * One scan: deep zoom on the left (the scan is the hero), and beside it the catalogue fields, the status
- * actions and the audit trail. The chart form's grid can be laid over the scan to check the form.
+ * One scan: the close view on the left (the scan is the hero), and beside it the catalogue fields, the status
+ * actions and the change log. The chart form's grid can be laid over the scan to check the form.
  */
 @Component({
   selector: 'isl-scan-page',
@@ -45,8 +45,8 @@ interface ScanView {
     MatSlideToggleModule,
     MatTabsModule,
     ScanStatusChip,
-    DeepZoom,
-    ScanAudit,
+    CloseView,
+    ScanChangeLog,
     ScanMetadataForm,
     ScanStatusActions,
   ],
@@ -82,7 +82,7 @@ export class ScanPage {
     return loaded;
   });
   protected readonly failure = computed(() => this.loaded()?.failure ?? null);
-  protected readonly auditRefresh = signal(0);
+  protected readonly changeLogRefresh = signal(0);
   protected readonly showGrid = signal(false);
   protected readonly isRetrying = signal(false);
   protected readonly retryFailure = signal<string | null>(null);
@@ -121,7 +121,7 @@ export class ScanPage {
 
   protected takeAnswer(scan: ScanDetail): void {
     this.answered.set(scan);
-    this.auditRefresh.update((n) => n + 1);
+    this.changeLogRefresh.update((n) => n + 1);
   }
 
   protected retryDerivatives(): void {

@@ -37,11 +37,11 @@ import { SCAN_STATUS_LABELS, SCAN_STATUSES, type ScanStatus, type ScanStatusCoun
     .count.is-chosen { outline: 2px solid var(--mat-sys-primary); outline-offset: -1px; }
     .number { font: var(--mat-sys-headline-small); line-height: 1.1; }
     .label { font: var(--mat-sys-label-medium); color: var(--mat-sys-on-surface-variant); }
-    .status-received { border-left-color: var(--mat-sys-outline); }
-    .status-ready_to_trace { border-left-color: var(--mat-sys-tertiary); }
-    .status-traced { border-left-color: var(--mat-sys-secondary); }
-    .status-approved { border-left-color: var(--mat-sys-primary); }
-    .status-withdrawn { border-left-color: var(--mat-sys-error); }
+    .status-received { border-left-color: var(--isl-status-received); }
+    .status-ready_to_trace { border-left-color: var(--isl-status-ready_to_trace); }
+    .status-traced { border-left-color: var(--isl-status-traced); }
+    .status-approved { border-left-color: var(--isl-status-approved); }
+    .status-withdrawn { border-left-color: var(--isl-status-withdrawn); }
     .all { border-left-color: var(--mat-sys-on-surface); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -2,6 +2,7 @@ import {
   afterNextRender,
   ChangeDetectionStrategy,
   Component,
+  computed,
   DestroyRef,
   effect,
   ElementRef,
@@ -61,6 +62,12 @@ export class ScanStage {
 
   private readonly konvaHost = viewChild.required<ElementRef<HTMLDivElement>>('konvaHost');
   protected readonly zoomPercent = signal(100);
+  /** The canvas's text alternative: what is on the scan so far, for a screen reader (the steps' panels carry the detail). */
+  protected readonly altText = computed(() => {
+    const pins = this.pins().length;
+    const knots = this.knots().length;
+    return `The scan, zoomed to ${this.zoomPercent()}%, with ${pins} ${pins === 1 ? 'pin' : 'pins'} and an ink line of ${knots} ${knots === 1 ? 'knot' : 'knots'}`;
+  });
 
   private stage: Konva.Stage | null = null;
   private imageLayer: Konva.Layer | null = null;

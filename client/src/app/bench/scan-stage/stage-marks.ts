@@ -1,14 +1,14 @@
 import type { PinInput } from '@shared/api/ink-lines';
 import Konva from 'konva';
 
+import { GAP_RED, gapBracketLines } from '../../shared/plot-marks/gap-brackets';
 import type { BenchKnot, ScanPoint } from '../bench-state';
 
 // Konva draws on canvas and cannot read CSS custom properties; these match --isl-pin-amber and --isl-ink-cyan.
 const PIN_AMBER = 'hsl(38, 95%, 48%)';
 const INK_CYAN = 'hsl(188, 100%, 42%)';
-// Low-confidence spans (dashed orange) and gaps (red brackets), as the Look asks.
+// Doubtful stretches (dashed orange) and gaps (red brackets, drawn as in every plot), as the Look asks.
 const LOW_CONFIDENCE_ORANGE = 'hsl(24, 100%, 50%)';
-const GAP_RED = 'hsl(0, 80%, 48%)';
 const OUTLINE = 'rgba(20, 30, 30, 0.85)';
 /** Below this confidence a followed stretch is drawn as doubtful, for the volunteer to check. */
 export const LOW_CONFIDENCE = 0.5;
@@ -126,10 +126,5 @@ function drawInkLine(layer: Konva.Layer, knots: readonly BenchKnot[], points: { 
 
 /** "[" just after the knot before a gap and "]" just before the knot after it. */
 function drawGapBrackets(layer: Konva.Layer, before: { x: number; y: number }, after: { x: number; y: number }, unit: number): void {
-  const arm = 4 * unit;
-  const half = 8 * unit;
-  const open = before.x + 3 * unit;
-  const close = after.x - 3 * unit;
-  layer.add(new Konva.Line({ points: [open + arm, before.y - half, open, before.y - half, open, before.y + half, open + arm, before.y + half], stroke: GAP_RED, strokeWidth: 2 * unit, listening: false }));
-  layer.add(new Konva.Line({ points: [close - arm, after.y - half, close, after.y - half, close, after.y + half, close - arm, after.y + half], stroke: GAP_RED, strokeWidth: 2 * unit, listening: false }));
+  for (const points of gapBracketLines(before, after, unit)) layer.add(new Konva.Line({ points, stroke: GAP_RED, strokeWidth: 2 * unit, listening: false }));
 }

@@ -4,7 +4,7 @@ import type { Observable } from 'rxjs';
 import type { Page, PageQuery } from '@shared/api/paging';
 import { API, IIIF } from '@shared/api/routes';
 import type {
-  ScanAuditEntry,
+  ScanChangeLogEntry,
   ScanDetail,
   ScanFilters,
   ScanMetadataInput,
@@ -56,8 +56,8 @@ export class ScansApi {
     return this.http.post<ScanDetail>(API.scanStatus(scanId), change);
   }
 
-  audit(scanId: string, query: PageQuery): Observable<Page<ScanAuditEntry>> {
-    return this.http.get<Page<ScanAuditEntry>>(API.scanAudit(scanId), { params: toPageParams(query) });
+  changeLog(scanId: string, query: PageQuery): Observable<Page<ScanChangeLogEntry>> {
+    return this.http.get<Page<ScanChangeLogEntry>>(API.scanChangeLog(scanId), { params: toPageParams(query) });
   }
 
   retryDerivatives(scanId: string): Observable<ScanDetail> {

@@ -11,6 +11,14 @@ import { AuthSession } from '../auth/auth-session';
 import { signInForTest } from '../auth/sign-in-for-test';
 import { AppShell } from './app-shell';
 
+// jsdom has the dialog element but not its modal methods: open and close it by its attribute instead.
+HTMLDialogElement.prototype.showModal ??= function (this: HTMLDialogElement) {
+  this.setAttribute('open', '');
+};
+HTMLDialogElement.prototype.close ??= function (this: HTMLDialogElement) {
+  this.removeAttribute('open');
+};
+
 async function openShellFor(roles: Role[]) {
   localStorage.clear();
   TestBed.configureTestingModule({
@@ -39,15 +47,38 @@ describe('AppShell', () => {
     expect(await Promise.all(items.map((item) => item.getTitle()))).toEqual(['Archive', 'People']);
   });
 
-  it('when sign out is pressed, then the session ends and the sign-in screen opens', async () => {
+  it('when sign out is pressed and confirmed, then the session ends and the sign-in screen opens', async () => {
     const { fixture, harnesses } = await openShellFor(['volunteer']);
     const navigateByUrl = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
     const signOut = await harnesses.getHarness(MatButtonHarness.with({ text: /Sign out/ }));
 
     await signOut.click();
+    await (await harnesses.getHarness(MatButtonHarness.with({ selector: '[data-testid="confirm-sign-out"]' }))).click();
     await fixture.whenStable();
 
     expect(TestBed.inject(AuthSession).isSignedIn()).toBe(false);
     expect(navigateByUrl).toHaveBeenCalledWith('/sign-in');
+  });
+
+  it('when sign out is pressed and the person stays, then the session goes on', async () => {
+    const { fixture, harnesses } = await openShellFor(['volunteer']);
+    const navigateByUrl = jest.spyOn(TestBed.inject(Router), 'navigateByUrl').mockResolvedValue(true);
+
+    await (await harnesses.getHarness(MatButtonHarness.with({ text: /Sign out/ }))).click();
+    await (await harnesses.getHarness(MatButtonHarness.with({ selector: '[data-testid="stay-signed-in"]' }))).click();
+    await fixture.whenStable();
+
+    expect(TestBed.inject(AuthSession).isSignedIn()).toBe(true);
+    expect(navigateByUrl).not.toHaveBeenCalled();
+  });
+
+  it('when the page opens, then the first tab stop skips to the main landmark, before Sign out', async () => {
+    const { fixture } = await openShellFor(['volunteer']);
+    const element = fixture.nativeElement as HTMLElement;
+
+    const focusable = [...element.querySelectorAll<HTMLElement>('a[href], button')];
+
+    expect(focusable[0].dataset['testid']).toBe('skip-to-main');
+    expect(element.querySelector('main#main')).not.toBeNull();
   });
 });

@@ -12,7 +12,10 @@ import { map } from 'rxjs';
 import { areasFor } from '../auth/areas';
 import { AuthSession } from '../auth/auth-session';
 
-/** Toolbar and side navigation around every signed-in screen; lists only the areas the person may use. */
+/**
+ * Toolbar and side navigation around every signed-in screen; lists only the areas the person may use. The
+ * first tab stop skips to the page's main landmark; Sign out asks before it acts.
+ */
 @Component({
   selector: 'isl-app-shell',
   imports: [MatToolbarModule, MatSidenavModule, MatListModule, MatIconModule, MatButtonModule, RouterOutlet, RouterLink, RouterLinkActive],
@@ -31,8 +34,20 @@ export class AppShell {
     { initialValue: false },
   );
 
-  protected signOut(): void {
+  /** Sign out asks first (a native modal dialog: focus moves into it and Escape keeps the session). */
+  protected askToSignOut(dialog: HTMLDialogElement): void {
+    dialog.showModal();
+  }
+
+  protected signOut(dialog: HTMLDialogElement): void {
+    dialog.close();
     this.session.signOut();
     void this.router.navigateByUrl('/sign-in');
+  }
+
+  /** The skip link moves focus into the page, past the toolbar and the navigation. */
+  protected skipToMain(event: Event, main: HTMLElement): void {
+    event.preventDefault();
+    main.focus();
   }
 }

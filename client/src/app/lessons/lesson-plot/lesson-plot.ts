@@ -2,13 +2,18 @@ import { ChangeDetectionStrategy, Component, computed, input } from '@angular/co
 import type { CandidateDecision, FrontCandidateView, FrontNoteKind } from '@shared/api/lessons';
 import type { SeriesPoint } from '@shared/api/series';
 
-import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type PlotBox } from '../../shared/pressure-plot/plot-scales';
+import { gapBracketPath } from '../../shared/plot-marks/gap-brackets';
+import { findGapEnds } from '../../shared/pressure-plot/plot-gaps';
+import { buildLinePath, createPlotScales, medianStepMs, type PlotBox } from '../../shared/pressure-plot/plot-scales';
+import { pressureTicks, timeTicks } from '../../shared/pressure-plot/plot-ticks';
 import { kindLabel } from '../lesson-text';
 
 const BOX: PlotBox = { width: 960, height: 340, marginLeft: 56, marginRight: 16, marginTop: 14, marginBottom: 36 };
 /** On a phone the same text size needs a narrower drawing: fewer user units across, so labels stay readable. */
 const NARROW_BOX: PlotBox = { width: 440, height: 300, marginLeft: 44, marginRight: 10, marginTop: 14, marginBottom: 32 };
 const GAP_FACTOR = 3;
+/** One line width of the gap brackets, plot units (the series plot's). */
+const BRACKET_UNIT = 0.75;
 
 /** A note as the plot draws it. */
 export interface PlotNote {
@@ -42,25 +47,15 @@ export class LessonPlot {
 
   protected readonly box = computed(() => (this.isNarrow() ? NARROW_BOX : BOX));
   private readonly scales = computed(() => createPlotScales(this.points(), this.box(), this.timeDomainMs()));
-  protected readonly linePath = computed(() => {
+  private readonly maxStepMs = computed(() => {
     const step = medianStepMs(this.points()) * GAP_FACTOR;
-    return buildLinePath(this.points(), this.scales(), step > 0 ? step : Number.POSITIVE_INFINITY);
+    return step > 0 ? step : Number.POSITIVE_INFINITY;
   });
-  protected readonly xTicks = computed(() => {
-    const { x } = this.scales();
-    const box = this.box();
-    const ticks = x.ticks(this.isNarrow() ? 3 : 6);
-    const stepMs = ticks.length > 1 ? ticks[1].getTime() - ticks[0].getTime() : 0;
-    return ticks.map((tick) => {
-      const at = x(tick);
-      const anchor = at > box.width - box.marginRight - 40 ? 'end' : at < box.marginLeft + 40 ? 'start' : 'middle';
-      return { at, label: formatUtcTick(tick, stepMs), anchor };
-    });
-  });
-  protected readonly yTicks = computed(() => {
-    const { y } = this.scales();
-    return y.ticks(this.isNarrow() ? 4 : 6).map((tick) => ({ at: y(tick), label: String(tick) }));
-  });
+  protected readonly linePath = computed(() => buildLinePath(this.points(), this.scales(), this.maxStepMs()));
+  /** Gaps are drawn as on the Bench and the series plot. */
+  protected readonly gapBrackets = computed(() => findGapEnds(this.points(), this.scales(), this.maxStepMs()).map((ends) => gapBracketPath(ends.before, ends.after, BRACKET_UNIT)));
+  protected readonly xTicks = computed(() => timeTicks(this.scales(), this.box(), this.isNarrow() ? 3 : 6));
+  protected readonly yTicks = computed(() => pressureTicks(this.scales(), this.isNarrow() ? 4 : 6));
   protected readonly noteMarks = computed(() => {
     const { x } = this.scales();
     const [startMs, endMs] = this.timeDomainMs();

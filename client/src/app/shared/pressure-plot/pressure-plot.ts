@@ -1,20 +1,31 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
-import type { SeriesPoint } from '@shared/api/series';
+import type { SeriesFlag, SeriesPoint } from '@shared/api/series';
+import { SERIES_FLAG_WORDS } from '@shared/api/series-flag-words';
 
-import { buildLinePath, createPlotScales, formatUtcTick, medianStepMs, type PlotBox } from './plot-scales';
+import { flagMarkPath, isMarkedFlag } from '../plot-marks/flag-marks';
+import { FlagLegend } from '../plot-marks/flag-legend';
+import { gapBracketPath } from '../plot-marks/gap-brackets';
+import { findGapEnds } from './plot-gaps';
+import { buildLinePath, createPlotScales, medianStepMs, type PlotBox } from './plot-scales';
+import { pressureTicks, timeTicks } from './plot-ticks';
 import { buildUncertaintyBandPath } from './uncertainty-band';
 
 const BOX: PlotBox = { width: 960, height: 360, marginLeft: 56, marginRight: 16, marginTop: 12, marginBottom: 36 };
 // A step more than this many typical steps long is treated as missing data.
 const GAP_FACTOR = 3;
+/** Half size of a flag mark and one line width of the gap brackets, plot units. */
+const MARK_RADIUS = 3.5;
+const BRACKET_UNIT = 0.75;
 
 /**
- * Pressure (hPa) against time (UTC) as SVG: axes with ticks, the line with gaps left blank, a light band of
- * ± one standard uncertainty around it, flagged points marked.
+ * Pressure (hPa) against time (UTC) as SVG: axes with ticks, the line with red brackets at its gaps (as on
+ * the Bench), a light band of ± one standard uncertainty around it, flagged points marked with one shape
+ * per flag, and a legend in words beneath.
  */
 @Component({
   selector: 'isl-pressure-plot',
-  templateUrl: './pressure-plot.svg',
+  imports: [FlagLegend],
+  templateUrl: './pressure-plot.html',
   styleUrl: './pressure-plot.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
@@ -31,32 +42,21 @@ export class PressurePlot {
   });
   protected readonly linePath = computed(() => buildLinePath(this.points(), this.scales(), this.maxStepMs()));
   protected readonly bandPath = computed(() => buildUncertaintyBandPath(this.points(), this.scales(), this.maxStepMs()));
-  protected readonly xTicks = computed(() => {
-    const { x } = this.scales();
-    const ticks = x.ticks(8);
-    const stepMs = ticks.length > 1 ? ticks[1].getTime() - ticks[0].getTime() : 0;
-    // Labels at the ends of the axis lean inwards so they are not cut off by the plot's edge.
-    const edgePx = 40;
-    return ticks.map((tick) => {
-      const at = x(tick);
-      const anchor = at > BOX.width - BOX.marginRight - edgePx ? 'end' : at < BOX.marginLeft + edgePx ? 'start' : 'middle';
-      return { at, label: formatUtcTick(tick, stepMs), anchor };
-    });
-  });
-  protected readonly yTicks = computed(() => {
-    const { y } = this.scales();
-    return y.ticks(6).map((tick) => ({ at: y(tick), label: String(tick) }));
-  });
+  protected readonly xTicks = computed(() => timeTicks(this.scales(), BOX, 8));
+  protected readonly yTicks = computed(() => pressureTicks(this.scales(), 6));
   protected readonly flaggedMarks = computed(() => {
     const { x, y } = this.scales();
-    return this.points()
-      .filter((point) => point.flag === 'suspect' || point.flag === 'off_scale' || point.flag === 'interpolated')
-      .map((point) => ({ cx: x(new Date(point.time)), cy: y(point.pressureHpa), flag: point.flag }));
+    return this.points().flatMap((point) =>
+      isMarkedFlag(point.flag)
+        ? [{ path: flagMarkPath(point.flag, x(new Date(point.time)), y(point.pressureHpa), MARK_RADIUS), flag: point.flag, word: SERIES_FLAG_WORDS[point.flag] }]
+        : [],
+    );
   });
-  protected readonly gapSpans = computed(() => {
-    const { x } = this.scales();
-    return this.points()
-      .filter((point) => point.flag === 'gap')
-      .map((point) => x(new Date(point.time)));
+  protected readonly gapBrackets = computed(() => findGapEnds(this.points(), this.scales(), this.maxStepMs()).map((ends) => gapBracketPath(ends.before, ends.after, BRACKET_UNIT)));
+  /** The flags the legend explains: those on the plot, and gap whenever the line is lifted. */
+  protected readonly shownFlags = computed(() => {
+    const flags = new Set<SeriesFlag>(this.points().map((point) => point.flag));
+    if (this.gapBrackets().length > 0) flags.add('gap');
+    return [...flags];
   });
 }

@@ -9,11 +9,12 @@ import { SCAN_STATUS_LABELS, type ScanStatus } from '@shared/api/scans';
   template: `<mat-chip-set><mat-chip [disableRipple]="true" [class]="'status-' + status()" [attr.data-status]="status()">{{ label() }}</mat-chip></mat-chip-set>`,
   styles: `
     mat-chip { --mat-chip-container-height: 24px; }
-    .status-received { --mat-chip-elevated-container-color: var(--mat-sys-surface-container-high); }
-    .status-ready_to_trace { --mat-chip-elevated-container-color: var(--mat-sys-tertiary-container); }
-    .status-traced { --mat-chip-elevated-container-color: var(--mat-sys-secondary-container); }
-    .status-approved { --mat-chip-elevated-container-color: var(--mat-sys-primary-container); }
-    .status-withdrawn { --mat-chip-elevated-container-color: var(--mat-sys-error-container); }
+    // Each state its own hue (theme: --isl-status-*); amber is for pins only.
+    .status-received { --mat-chip-elevated-container-color: var(--isl-status-received-container); }
+    .status-ready_to_trace { --mat-chip-elevated-container-color: var(--isl-status-ready_to_trace-container); }
+    .status-traced { --mat-chip-elevated-container-color: var(--isl-status-traced-container); }
+    .status-approved { --mat-chip-elevated-container-color: var(--isl-status-approved-container); }
+    .status-withdrawn { --mat-chip-elevated-container-color: var(--isl-status-withdrawn-container); }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })

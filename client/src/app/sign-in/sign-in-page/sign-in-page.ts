@@ -3,6 +3,7 @@ import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
+import { ErrorStateMatcher } from '@angular/material/core';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { Router, RouterLink } from '@angular/router';
@@ -10,12 +11,15 @@ import { Router, RouterLink } from '@angular/router';
 import { AuthApi } from '../../core/auth/auth-api';
 import { AuthSession } from '../../core/auth/auth-session';
 import { ApiError } from '../../core/http/api-error';
+import { ShowOnSubmitErrorStateMatcher } from '../../shared/forms/show-on-submit-error-state';
 
 @Component({
   selector: 'isl-sign-in-page',
   imports: [ReactiveFormsModule, RouterLink, MatCardModule, MatFormFieldModule, MatInputModule, MatButtonModule],
   templateUrl: './sign-in-page.html',
   styleUrl: './sign-in-page.scss',
+  // Empty fields turn red after a submit, not as soon as the person tabs past them.
+  providers: [{ provide: ErrorStateMatcher, useClass: ShowOnSubmitErrorStateMatcher }],
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class SignInPage {

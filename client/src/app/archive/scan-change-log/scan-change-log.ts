@@ -2,33 +2,33 @@ import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, input } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatIconModule } from '@angular/material/icon';
-import type { ScanAuditEntry } from '@shared/api/scans';
+import type { ScanChangeLogEntry } from '@shared/api/scans';
 import { catchError, combineLatest, map, of, switchMap } from 'rxjs';
 
 import { ScansApi } from '../../core/api/scans-api';
 import { ApiError } from '../../core/http/api-error';
-import { auditFieldLabel, auditValueText } from './audit-value-text';
+import { changeLogFieldLabel, changeLogValueText } from './change-log-text';
 
 interface AuditView {
-  entries: ScanAuditEntry[];
+  entries: ScanChangeLogEntry[];
   total: number;
   failure: string | null;
 }
 
-const ACTION_LABELS: Record<ScanAuditEntry['action'], string> = { upload: 'uploaded', edit: 'edited', status: 'status changed', inventory: 'filled from the inventory' };
+const ACTION_LABELS: Record<ScanChangeLogEntry['action'], string> = { upload: 'uploaded', edit: 'edited', status: 'status changed', inventory: 'filled from the inventory' };
 
-/** Who changed what on a scan and when, newest first, with each field's value before and after. */
+/** The scan's change log: who changed what and when, newest first, with each field's value before and after. */
 @Component({
-  selector: 'isl-scan-audit',
+  selector: 'isl-scan-change-log',
   imports: [DatePipe, MatIconModule],
   template: `
     @if (view(); as view) {
       @if (view.failure) {
         <p class="isl-inline-error" role="alert">{{ view.failure }}</p>
       }
-      <ol class="entries" data-testid="scan-audit">
+      <ol class="entries" data-testid="change-log">
         @for (entry of view.entries; track entry.id) {
-          <li class="entry" data-testid="audit-entry" [attr.data-action]="entry.action">
+          <li class="entry" data-testid="change-log-entry" [attr.data-action]="entry.action">
             <div class="head">
               <b>{{ entry.personName }}</b> {{ actionLabels[entry.action] }}
               <span class="isl-muted">{{ entry.at | date: 'yyyy-MM-dd HH:mm:ss' : 'UTC' }} UTC</span>
@@ -37,9 +37,9 @@ const ACTION_LABELS: Record<ScanAuditEntry['action'], string> = { upload: 'uploa
               @for (field of fieldsOf(entry); track field) {
                 <tr>
                   <th scope="row">{{ fieldLabel(field) }}</th>
-                  <td class="before">{{ text(entry.changes[field].before) }}</td>
+                  <td class="before">{{ text(entry.changes[field].before, field, entry.names) }}</td>
                   <td class="arrow"><mat-icon>arrow_forward</mat-icon></td>
-                  <td class="after">{{ text(entry.changes[field].after) }}</td>
+                  <td class="after">{{ text(entry.changes[field].after, field, entry.names) }}</td>
                 </tr>
               }
             </table>
@@ -65,7 +65,7 @@ const ACTION_LABELS: Record<ScanAuditEntry['action'], string> = { upload: 'uploa
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class ScanAudit {
+export class ScanChangeLog {
   private readonly scansApi = inject(ScansApi);
 
   readonly scanId = input.required<string>();
@@ -73,20 +73,20 @@ export class ScanAudit {
   readonly refresh = input(0);
 
   protected readonly actionLabels = ACTION_LABELS;
-  protected readonly text = auditValueText;
-  protected readonly fieldLabel = auditFieldLabel;
+  protected readonly text = changeLogValueText;
+  protected readonly fieldLabel = changeLogFieldLabel;
   protected readonly view = toSignal(
     combineLatest([toObservable(this.scanId), toObservable(this.refresh)]).pipe(
       switchMap(([scanId]) =>
-        this.scansApi.audit(scanId, { page: 0, pageSize: 100, direction: 'desc' }).pipe(
+        this.scansApi.changeLog(scanId, { page: 0, pageSize: 100, direction: 'desc' }).pipe(
           map((page): AuditView => ({ entries: page.items, total: page.total, failure: null })),
-          catchError((error: unknown) => of<AuditView>({ entries: [], total: 0, failure: error instanceof ApiError ? error.message : 'The history could not be loaded.' })),
+          catchError((error: unknown) => of<AuditView>({ entries: [], total: 0, failure: error instanceof ApiError ? error.message : 'The change log could not be loaded.' })),
         ),
       ),
     ),
   );
 
-  protected fieldsOf(entry: ScanAuditEntry): string[] {
+  protected fieldsOf(entry: ScanChangeLogEntry): string[] {
     return Object.keys(entry.changes);
   }
 }

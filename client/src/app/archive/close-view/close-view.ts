@@ -45,7 +45,7 @@ export function gridSizePx(form: ChartForm, dpi: number): { widthPx: number; hei
 }
 
 /**
- * Deep zoom on a scan through its IIIF info.json with OpenSeadragon (loaded on first use, so only this
+ * The close view of a scan: zoom and pan through its IIIF info.json with OpenSeadragon (loaded on first use, so only this
  * page's chunk carries it). Tiles travel with the bearer token (loadTilesWithAjax + ajaxHeaders); the
  * viewer's own image buttons are off (they would load images from a prefixUrl the CSP forbids) and
  * Isallo's compact buttons drive it instead. Optionally lays a chart form's grid over the scan, scaled by
@@ -55,12 +55,12 @@ export function gridSizePx(form: ChartForm, dpi: number): { widthPx: number; hei
  * for tests and for the eye of whoever debugs a slow server.
  */
 @Component({
-  selector: 'isl-deep-zoom',
+  selector: 'isl-close-view',
   imports: [MatButtonModule, MatIconModule, MatTooltipModule, ChartGridDrawing],
-  templateUrl: './deep-zoom.html',
-  styleUrl: './deep-zoom.scss',
+  templateUrl: './close-view.html',
+  styleUrl: './close-view.scss',
   host: {
-    'data-testid': 'deep-zoom',
+    'data-testid': 'close-view',
     '[attr.data-open]': 'isOpen()',
     '[attr.data-tiles-loaded]': 'tilesLoaded()',
     '[attr.data-tiles-drawn]': 'tilesDrawn()',
@@ -69,7 +69,7 @@ export function gridSizePx(form: ChartForm, dpi: number): { widthPx: number; hei
   },
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class DeepZoom {
+export class CloseView {
   private readonly session = inject(AuthSession);
   private readonly scansApi = inject(ScansApi);
 
@@ -78,6 +78,8 @@ export class DeepZoom {
   readonly gridForm = input<ChartForm | null>(null);
   readonly dpi = input<number | null>(null);
   readonly showGrid = input(false);
+  /** What the scan is, for the viewer's text alternative (the file name). */
+  readonly scanName = input('');
 
   private readonly viewerHost = viewChild.required<ElementRef<HTMLDivElement>>('viewerHost');
   private readonly gridHost = viewChild.required<ElementRef<HTMLDivElement>>('gridHost');
@@ -99,6 +101,14 @@ export class DeepZoom {
     const size = gridSizePx(form, dpi);
     const offset = this.offset() ?? { xPx: (image.widthPx - size.widthPx) / 2, yPx: (image.heightPx - size.heightPx) / 2 };
     return { ...size, xPx: Math.round(offset.xPx), yPx: Math.round(offset.yPx) };
+  });
+
+  /** The canvas's text alternative: which scan, and whether the grid lies over it. */
+  protected readonly altText = computed(() => {
+    const name = this.scanName() ? `Scan ${this.scanName()}` : 'The scan';
+    const placement = this.placement();
+    const form = this.gridForm();
+    return placement && form ? `${name} in close view, with the grid of ${form.name} laid over it` : `${name} in close view`;
   });
 
   private viewer: OpenSeadragon.Viewer | null = null;
@@ -149,7 +159,7 @@ export class DeepZoom {
       [info, OSD] = await Promise.all([firstValueFrom(this.scansApi.iiifInfo(this.scanId())), import('openseadragon').then((m) => m.default)]);
     } catch (error: unknown) {
       // Not a bug of ours to rethrow: the page shows why the image cannot open.
-      this.failure.set(error instanceof ApiError ? `The deep-zoom image could not be opened: ${error.message}` : 'The deep-zoom viewer could not be loaded.');
+      this.failure.set(error instanceof ApiError ? `The close view could not open the scan: ${error.message}` : 'The close view could not be loaded.');
       return;
     }
     if (destroyed) return;
@@ -182,7 +192,7 @@ export class DeepZoom {
     });
     viewer.addHandler('open-failed', (event) => {
       this.isOpen.set(false);
-      this.failure.set(`The deep-zoom image could not be opened${event.message ? `: ${event.message}` : '.'}`);
+      this.failure.set(`The close view could not open the scan${event.message ? `: ${event.message}` : '.'}`);
     });
     viewer.addHandler('tile-loaded', () => this.tilesLoaded.update((n) => n + 1));
     viewer.addHandler('tile-drawn', () => this.tilesDrawn.update((n) => n + 1));
