@@ -22,6 +22,12 @@ import * as renameScanChartStart from './2026_12_03_0600_rename_scan_chart_start
 import * as createSeriesChange from './2026_12_03_0610_create_series_change';
 import * as createLesson from './2026_12_03_1200_create_lesson';
 import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
+import * as createInkLineReview from './2026_12_04_0900_create_ink_line_review';
+import * as createStationTracing from './2026_12_04_0910_create_station_tracing';
+import * as createTracePriority from './2026_12_04_0920_create_trace_priority';
+import * as createChartClaim from './2026_12_04_0930_create_chart_claim';
+import * as createCrossTraceAgreement from './2026_12_04_0940_create_cross_trace_agreement';
+import * as allowReviewAudit from './2026_12_04_0950_allow_review_audit';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -52,4 +58,10 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_03_0610_create_series_change': createSeriesChange,
   '2026_12_03_1200_create_lesson': createLesson,
   '2026_12_03_1210_create_lesson_share': createLessonShare,
+  '2026_12_04_0900_create_ink_line_review': createInkLineReview,
+  '2026_12_04_0910_create_station_tracing': createStationTracing,
+  '2026_12_04_0920_create_trace_priority': createTracePriority,
+  '2026_12_04_0930_create_chart_claim': createChartClaim,
+  '2026_12_04_0940_create_cross_trace_agreement': createCrossTraceAgreement,
+  '2026_12_04_0950_allow_review_audit': allowReviewAudit,
 };

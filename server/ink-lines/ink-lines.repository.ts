@@ -46,3 +46,27 @@ export async function insertInkLine(
     .returning(['id', 'version', 'status'])
     .executeTakeFirstOrThrow();
 }
+
+/**
+ * Hands in the author's own draft row (a reworked, returned line keeps its id): new pin set and knots, its
+ * old points dropped (the caller stores the new ones), status handed in, version bumped.
+ */
+export async function handInDraftRow(
+  db: DbOrTrx,
+  draft: { inkLineId: string; pinSetId: string; knots: KnotInput[] },
+): Promise<{ id: string; version: number; status: InkLineStatus }> {
+  await db.deleteFrom('series_point').where('ink_line_id', '=', draft.inkLineId).execute();
+  return db
+    .updateTable('ink_line')
+    .set((eb) => ({
+      pin_set_id: draft.pinSetId,
+      knots: JSON.stringify(draft.knots),
+      status: 'handed_in' as const,
+      version: eb('version', '+', 1),
+      updated_at: new Date(),
+    }))
+    .where('id', '=', draft.inkLineId)
+    .where('status', '=', 'draft')
+    .returning(['id', 'version', 'status'])
+    .executeTakeFirstOrThrow();
+}

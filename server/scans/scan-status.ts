@@ -3,14 +3,15 @@ import { SCAN_STATUS_LABELS } from '@shared/api/scans';
 import { AppError, HTTP } from '../errors/app-error';
 
 /**
- * The moves an archivist may make. `traced` is reached by handing in an ink line, not by this route;
- * any state may be withdrawn (with a reason), and a withdrawn scan is restored to received.
+ * The moves an archivist may make. `traced` and `approved` follow the scan's ink lines (a hand-in, a review
+ * decision), never this route; any state may be withdrawn (with a reason), and a withdrawn scan is restored
+ * (asked as received; it comes back to the status its ink lines give, see scans.service.ts).
  */
 export const ALLOWED_STATUS_MOVES: Record<ScanStatus, readonly ScanStatus[]> = {
   received: ['ready_to_trace', 'withdrawn'],
   ready_to_trace: ['received', 'withdrawn'],
-  traced: ['approved', 'ready_to_trace', 'withdrawn'],
-  approved: ['traced', 'withdrawn'],
+  traced: ['ready_to_trace', 'withdrawn'],
+  approved: ['withdrawn'],
   withdrawn: ['received'],
 };
 
@@ -34,6 +35,14 @@ const MISSING_LABELS: Record<string, string> = {
 /** Throws 409 unless the move is allowed and, for ready to trace, the scan has everything tracing needs. */
 export function checkStatusMove(scan: ScanDetail, to: ScanStatus): void {
   if (scan.status === to) throw new AppError(HTTP.conflict, 'conflict', `The scan is already ${SCAN_STATUS_LABELS[to]}.`);
+  if ((to === 'traced' || to === 'approved') && (scan.status === 'traced' || scan.status === 'approved')) {
+    throw new AppError(
+      HTTP.conflict,
+      'scan_status_follows_ink_lines',
+      `A scan becomes ${SCAN_STATUS_LABELS[to]} through its ink lines: approve or return them in Review.`,
+      { allowed: ALLOWED_STATUS_MOVES[scan.status] },
+    );
+  }
   if (!ALLOWED_STATUS_MOVES[scan.status].includes(to)) {
     throw new AppError(HTTP.conflict, 'conflict', `A scan that is ${SCAN_STATUS_LABELS[scan.status]} cannot become ${SCAN_STATUS_LABELS[to]}.`, {
       allowed: ALLOWED_STATUS_MOVES[scan.status],

@@ -228,14 +228,24 @@ export async function findScanIdsNeedingDerivatives(db: DbOrTrx): Promise<string
 export async function findScanForTracing(
   db: DbOrTrx,
   scanId: string,
-): Promise<{ id: string; stationId: string | null; chartFormId: string | null; chartStart: Date | null; status: ScanStatus } | undefined> {
+): Promise<
+  { id: string; stationId: string | null; chartFormId: string | null; chartStart: Date | null; status: ScanStatus; widthPx: number; heightPx: number } | undefined
+> {
   const row = await db
     .selectFrom('scan')
-    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'status'])
+    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'status', 'width_px', 'height_px'])
     .where('id', '=', scanId)
     .forUpdate()
     .executeTakeFirst();
   return row
-    ? { id: row.id, stationId: row.station_id, chartFormId: row.chart_form_id, chartStart: row.chart_start, status: row.status }
+    ? {
+        id: row.id,
+        stationId: row.station_id,
+        chartFormId: row.chart_form_id,
+        chartStart: row.chart_start,
+        status: row.status,
+        widthPx: row.width_px,
+        heightPx: row.height_px,
+      }
     : undefined;
 }

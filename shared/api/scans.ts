@@ -117,7 +117,7 @@ export interface ScanStatusChange {
 }
 
 /** What an audit row records. */
-export const SCAN_AUDIT_ACTIONS = ['upload', 'edit', 'status', 'inventory'] as const;
+export const SCAN_AUDIT_ACTIONS = ['upload', 'edit', 'status', 'inventory', 'review'] as const;
 export type ScanAuditAction = (typeof SCAN_AUDIT_ACTIONS)[number];
 
 /** One audit row: who changed what, when; `changes` maps a ScanDetail field name to its before and after values. */

@@ -184,16 +184,16 @@ describe('handing in an ink line', () => {
     expect(scan.status).toBe('ready_to_trace');
   });
 
-  it('when a traced scan gets a second trace, then both ink lines and their points are kept', async () => {
+  it('when the same volunteer hands in a second line of the chart, then it answers 409 own_chart_cross_trace and keeps the first', async () => {
     const draft = syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 6);
     const first = await handIn(draft);
 
     const second = await handIn(draft);
 
     expect(first.status).toBe(201);
-    expect(second.status).toBe(201);
-    expect(second.body.inkLineId).not.toBe(first.body.inkLineId);
-    expect(await countRows('ink_line')).toBe(2);
-    expect(await countRows('series_point')).toBe(10);
+    expect(second.status).toBe(409);
+    expect(second.body.error.code).toBe('own_chart_cross_trace');
+    expect(await countRows('ink_line')).toBe(1);
+    expect(await countRows('series_point')).toBe(5);
   });
 });

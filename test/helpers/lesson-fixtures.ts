@@ -3,6 +3,7 @@ import type { InkLineDraft } from '@shared/api/ink-lines';
 import type { ChartForm } from '@shared/domain/chart-form';
 import { readingToPixel } from '@shared/domain/registration';
 import * as inkLinesService from '../../server/ink-lines/ink-lines.service';
+import * as reviewService from '../../server/review/review.service';
 import * as scansService from '../../server/scans/scans.service';
 import { makePng } from './images';
 import type { TestContext } from './test-app';
@@ -40,6 +41,7 @@ export async function createTracedFrontScan(
   context: TestContext,
   scan: { stationId: string; chartFormId: string; form: ChartForm; chartStart: string; archivistId: string; volunteerId: string },
 ): Promise<{ scanId: string; inkLineId: string }> {
+  // Handed in, then approved by the archivist: only approved lines reach the station series a lesson reads.
   const tempPath = context.storage.newTempPath('.upload');
   await fs.writeFile(tempPath, await makePng(1800, 720));
   const uploaded = await scansService.uploadScan(
@@ -50,5 +52,6 @@ export async function createTracedFrontScan(
   );
   await context.db.updateTable('scan').set({ status: 'ready_to_trace' }).where('id', '=', uploaded.id).execute();
   const saved = await inkLinesService.handInInkLine(context.db, uploaded.id, frontDraft(scan.form, scan.chartStart), scan.volunteerId);
+  await reviewService.approveInkLine(context.db, saved.inkLineId, { version: saved.version }, scan.archivistId);
   return { scanId: uploaded.id, inkLineId: saved.inkLineId };
 }

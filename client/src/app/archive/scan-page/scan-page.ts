@@ -19,6 +19,7 @@ import { ScanStatusChip } from '../../shared/scan-status-chip/scan-status-chip';
 import { DeepZoom } from '../deep-zoom/deep-zoom';
 import { ScanAudit } from '../scan-audit/scan-audit';
 import { ScanMetadataForm } from '../scan-metadata-form/scan-metadata-form';
+import { TracingSettings } from '../tracing-settings/tracing-settings';
 import { ScanStatusActions } from '../scan-status-actions/scan-status-actions';
 
 /** While the worker makes the derivatives, look again this often. */
@@ -49,6 +50,7 @@ interface ScanView {
     ScanAudit,
     ScanMetadataForm,
     ScanStatusActions,
+    TracingSettings,
   ],
   templateUrl: './scan-page.html',
   styleUrl: './scan-page.scss',
