@@ -161,9 +161,12 @@ describe('cross-trace', () => {
     await context.close();
   });
 
-  it('when a station needs two lines, then the chart is offered to another volunteer only, never again to the first', async () => {
+  it('when a station needs two lines, then the chart is offered to another volunteer only, never again to the first, who cannot see the first line', async () => {
     const firstClaim = await as(first, request(context.app).post(API.deskNext));
-    await handIn(first, syntheticDraft(TEST_WEEKLY_FORM, CHART_START)).expect(201);
+    const firstLine = await handIn(first, syntheticDraft(TEST_WEEKLY_FORM, CHART_START)).expect(201);
+    const peek = await as(second, request(context.app).get(API.inkLineReview(firstLine.body.inkLineId)));
+    const secondsWaiting = await as(second, request(context.app).get(API.deskLines)).query({ section: 'waiting' });
+    const secondsSeries = await as(second, request(context.app).get(API.series)).query({ stationId, from: '2026-03-02', to: '2026-03-09' });
 
     const firstAgain = await as(first, request(context.app).post(API.deskNext));
     const secondClaim = await as(second, request(context.app).post(API.deskNext));
@@ -174,6 +177,10 @@ describe('cross-trace', () => {
     expect(secondClaim.body.claim.scanId).toBe(scanId);
     expect(ownCrossTrace.status).toBe(409);
     expect(ownCrossTrace.body.error.code).toBe('own_chart_cross_trace');
+    // Independence: the second volunteer reaches neither the first line, its pins, nor a series holding it.
+    expect(peek.status).toBe(403);
+    expect(secondsWaiting.body.items).toEqual([]);
+    expect(secondsSeries.status).toBe(403);
   });
 
   it('when the second line is handed in, then the agreement is stored and shown, the scan is approved only when both are, and a third line is refused', async () => {
