@@ -39,6 +39,7 @@ module.exports = {
       transform: { '^.+\\.ts$': swc },
       moduleNameMapper: sharedAlias,
       globalSetup: '<rootDir>/test/setup/api-global-setup.ts',
+      setupFilesAfterEnv: ['<rootDir>/test/setup/api-timeout.ts'],
     },
     {
       displayName: 'e2e',

@@ -28,6 +28,12 @@ import * as addPersonVersion from './2026_12_04_1310_add_person_version';
 import * as createInvitation from './2026_12_04_1320_create_invitation';
 import * as createPasswordReset from './2026_12_04_1330_create_password_reset';
 import * as createPeopleChange from './2026_12_04_1340_create_people_change';
+import * as createInkLineReview from './2026_12_04_0900_create_ink_line_review';
+import * as createStationTracing from './2026_12_04_0910_create_station_tracing';
+import * as createTracePriority from './2026_12_04_0920_create_trace_priority';
+import * as createChartClaim from './2026_12_04_0930_create_chart_claim';
+import * as createCrossTraceAgreement from './2026_12_04_0940_create_cross_trace_agreement';
+import * as allowReviewAudit from './2026_12_04_0950_allow_review_audit';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -64,4 +70,10 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_04_1320_create_invitation': createInvitation,
   '2026_12_04_1330_create_password_reset': createPasswordReset,
   '2026_12_04_1340_create_people_change': createPeopleChange,
+  '2026_12_04_0900_create_ink_line_review': createInkLineReview,
+  '2026_12_04_0910_create_station_tracing': createStationTracing,
+  '2026_12_04_0920_create_trace_priority': createTracePriority,
+  '2026_12_04_0930_create_chart_claim': createChartClaim,
+  '2026_12_04_0940_create_cross_trace_agreement': createCrossTraceAgreement,
+  '2026_12_04_0950_allow_review_audit': allowReviewAudit,
 };

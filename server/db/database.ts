@@ -2,6 +2,7 @@ import type { Kysely, Transaction } from 'kysely';
 import type { ScanAuditTable } from '../audit/scan-audit.table';
 import type { ChartFormTable } from '../chart-forms/chart-form.table';
 import type { DemoSeedTable } from '../demo/demo-seed.table';
+import type { ChartClaimTable, StationTracingTable, TracePriorityTable } from '../desk/desk.table';
 import type { InkLineTable } from '../ink-lines/ink-line.table';
 import type { PinSetTable } from '../ink-lines/pin-set.table';
 import type { InstrumentTable } from '../instruments/instrument.table';
@@ -10,6 +11,7 @@ import type { LessonShareTable, LessonTable } from '../lessons/lesson.table';
 import type { InvitationTable, PasswordResetTable } from '../people/invitation.table';
 import type { PeopleChangeTable } from '../people/people-change.table';
 import type { PersonRoleTable, PersonTable } from '../people/person.table';
+import type { CrossTraceAgreementTable, InkLineReviewTable } from '../review/review.table';
 import type { ScanTable } from '../scans/scan.table';
 import type { SeriesChangeTable } from '../series/series-change.table';
 import type { SeriesPointTable } from '../series/series-point.table';
@@ -36,6 +38,11 @@ export interface Database {
   invitation: InvitationTable;
   password_reset: PasswordResetTable;
   people_change: PeopleChangeTable;
+  ink_line_review: InkLineReviewTable;
+  cross_trace_agreement: CrossTraceAgreementTable;
+  station_tracing: StationTracingTable;
+  trace_priority: TracePriorityTable;
+  chart_claim: ChartClaimTable;
 }
 
 export type Db = Kysely<Database>;

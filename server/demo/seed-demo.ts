@@ -14,6 +14,7 @@ import { AppError } from '../errors/app-error';
 import { toRegistrationPins } from '../ink-lines/ink-line-reading';
 import * as inkLinesService from '../ink-lines/ink-lines.service';
 import * as peopleRepository from '../people/people.repository';
+import * as reviewService from '../review/review.service';
 import * as scansService from '../scans/scans.service';
 import * as stationsRepository from '../stations/stations.repository';
 import type { ScanDeps } from '../scans/scan-deps';
@@ -34,7 +35,10 @@ export interface SeedDemoResult {
   /** False when the scenario had been seeded before and nothing was done. */
   isSeeded: boolean;
   readyScanId: string | null;
+  /** The chart whose handed-in line the archivist approved: the Series area's data. */
   tracedScanId: string | null;
+  /** A chart whose handed-in line waits for review. */
+  waitingScanId: string | null;
 }
 
 async function ensureStation(db: Db, station: StationInput): Promise<StationSummary> {
@@ -97,12 +101,13 @@ function knotsFromTruth(sample: DemoSample, chartStartMs: number): { xPx: number
 /**
  * Seeds the invented demo scenario once: the five accounts, the two stations, a weekly and a daily chart
  * form and, when fixtures/samples/demo-weekly.png exists, that chart as a ready-to-trace scan of Kestrel
- * Ridge plus a re-encoded copy handed in from its true series, so the Series area has data at once.
+ * Ridge, a re-encoded copy handed in from its true series and approved (so the Series area has data at once),
+ * and a third copy handed in and waiting for review.
  * Scans go through the same upload and hand-in services as the routes.
  */
 export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promise<SeedDemoResult> {
   const { db, storage } = deps;
-  const notSeeded: SeedDemoResult = { isSeeded: false, readyScanId: null, tracedScanId: null };
+  const notSeeded: SeedDemoResult = { isSeeded: false, readyScanId: null, tracedScanId: null, waitingScanId: null };
   if (await db.selectFrom('demo_seed').select('name').where('name', '=', SEED_NAME).executeTakeFirst()) return notSeeded;
   await storage.ensureFolders();
 
@@ -112,7 +117,7 @@ export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promis
   const weeklyForm = await ensureChartForm(db, sample?.form ?? DEMO_WEEKLY_FORM_FALLBACK);
   await ensureChartForm(db, DEMO_DAILY_FORM);
 
-  const result: SeedDemoResult = { isSeeded: true, readyScanId: null, tracedScanId: null };
+  const result: SeedDemoResult = { isSeeded: true, readyScanId: null, tracedScanId: null, waitingScanId: null };
   if (sample) {
     const archivistId = personIds.get('archivist@isallo.test') as string;
     const volunteerId = personIds.get('volunteer@isallo.test') as string;
@@ -136,16 +141,34 @@ export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promis
         archivistId,
       );
       const chartStartMs = Date.parse(sample.chartStart);
+      const knots = knotsFromTruth(sample, chartStartMs);
       if (traced.inkLineCount === 0) {
-        await inkLinesService.handInInkLine(
+        const saved = await inkLinesService.handInInkLine(
           db,
           traced.id,
-          { work: { ...EMPTY_BENCH_WORK, step: 'proof', pins: sample.pins, knots: knotsFromTruth(sample, chartStartMs) }, draftVersion: null },
+          { work: { ...EMPTY_BENCH_WORK, step: 'proof', pins: sample.pins, knots }, draftVersion: null },
           volunteerId,
         );
+        await reviewService.approveInkLine(db, saved.inkLineId, { version: saved.version }, archivistId);
       }
       result.tracedScanId = traced.id;
       await seedDemoLesson(db, personIds.get('teacher@isallo.test') as string, kestrelRidge.id, chartStartMs);
+
+      // A third encoding of the same pixels, handed in and left for the archivist's Review.
+      const waitingPath = storage.newTempPath('.upload');
+      await sharp(sample.imagePath).png({ compressionLevel: 6, adaptiveFiltering: true }).toFile(waitingPath);
+      const waiting = await uploadOrReuse(deps, { tempPath: waitingPath, originalName: 'demo-weekly-review.png' }, fields, archivistId);
+      if (waiting.id !== traced.id && waiting.id !== ready.id) {
+        if (waiting.inkLineCount === 0) {
+          await inkLinesService.handInInkLine(
+            db,
+            waiting.id,
+            { work: { ...EMPTY_BENCH_WORK, step: 'proof', pins: sample.pins, knots }, draftVersion: null },
+            volunteerId,
+          );
+        }
+        result.waitingScanId = waiting.id;
+      }
     }
   }
 

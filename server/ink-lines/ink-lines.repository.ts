@@ -69,6 +69,8 @@ export async function insertHandedInLine(
 /** Turns the caller's draft into a handed-in line (same row, version + 1). */
 export async function handInDraft(db: DbOrTrx, draftId: string, line: HandedInLine): Promise<{ id: string; version: number; status: InkLineStatus }> {
   const now = new Date();
+  // A reworked (returned) line keeps its id: its old points go, the caller stores the new ones.
+  await db.deleteFrom('series_point').where('ink_line_id', '=', draftId).execute();
   return db
     .updateTable('ink_line')
     .set((eb) => ({

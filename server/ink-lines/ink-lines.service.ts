@@ -8,7 +8,10 @@ import { AppError, HTTP } from '../errors/app-error';
 import * as scansRepository from '../scans/scans.repository';
 import * as seriesRepository from '../series/series.repository';
 import { loadTraceableScan } from '../tracing/traceable-scan';
+import { releaseClaim } from '../desk/chart-claims';
+import { checkMayHandIn, compareWithOtherLines } from '../review/cross-trace';
 import * as inkLinesRepository from './ink-lines.repository';
+import { checkInsideImage, checkKnotTimes, checkRegistration } from './hand-in-checks';
 import { computeHandIn, savedView, seriesPointsOf, storedResultOf } from './ink-line-reading';
 
 /** 409 draft_version_conflict: the draft changed (another tab, or a hand-in) since this page last saved it. */
@@ -54,9 +57,12 @@ export async function saveDraft(db: Db, scanId: string, request: DraftSaveReques
 }
 
 /**
- * Hands in a trace: recomputes the series from the work alone through the shared pipeline (the client's numbers
- * are never used) and, in one transaction, stores the pin set, turns the caller's draft (or a new row) into a
- * handed-in line with its work and corrections, stores its points and marks the scan traced.
+ * Hands in a trace: checks it (pins and knots on the image, a registration within the chart form's limit, knots
+ * forward in time inside the drum period, no second line by the same volunteer, no more lines than the station
+ * needs), recomputes the series from the work alone through the shared pipeline (the client's numbers are never
+ * used) and, in one transaction, stores the pin set, turns the caller's draft (or a new row) into a handed-in line
+ * with its work and corrections, stores its points, compares it with a cross-trace, ends the author's claim and
+ * marks the scan traced. A handed-in line waits for review: it reaches no station series until approved.
  */
 export async function handInInkLine(db: Db, scanId: string, handIn: HandInRequest, authorId: string): Promise<InkLineSaved> {
   return db.transaction().execute(async (trx) => {
@@ -65,6 +71,9 @@ export async function handInInkLine(db: Db, scanId: string, handIn: HandInReques
     if (await inkLinesRepository.hasHandedIn(trx, scanId, authorId)) throw alreadyHandedIn();
     if (draft && draft.version !== handIn.draftVersion) throw draftVersionConflict(draft.version);
     if (!draft && handIn.draftVersion !== null) throw draftVersionConflict(null);
+    // Returned lines are reworked first, and a chart takes no more lines than its station needs.
+    await checkMayHandIn(trx, scan, authorId);
+    checkInsideImage(handIn.work, scan);
     const form = scan.form;
 
     let result;
@@ -76,6 +85,8 @@ export async function handInInkLine(db: Db, scanId: string, handIn: HandInReques
         reason: error.code,
       });
     }
+    checkRegistration(form, result.registration);
+    checkKnotTimes(form, result.registration, handIn.work);
     const points = seriesPointsOf(result);
     const stored = storedResultOf(result, points);
 
@@ -86,6 +97,8 @@ export async function handInInkLine(db: Db, scanId: string, handIn: HandInReques
       ? await inkLinesRepository.handInDraft(trx, draft.id, line)
       : await inkLinesRepository.insertHandedInLine(trx, { ...line, scanId, authorId });
     await seriesRepository.insertSeriesPoints(trx, inkLine.id, scan.stationId, points);
+    await compareWithOtherLines(trx, scanId, inkLine.id);
+    await releaseClaim(trx, scanId, authorId);
     if (scan.status !== 'traced') {
       await scansRepository.updateScanStatus(trx, scanId, 'traced');
       await auditRepository.insertScanAudit(trx, { scanId, personId: authorId, action: 'status', changes: { status: { before: scan.status, after: 'traced' } } });

@@ -13,6 +13,14 @@ const MISSING_LABELS: Record<TracingNeed, string> = {
 /** Throws 409 unless the move is allowed and, for ready to trace, the scan has everything tracing needs. */
 export function checkStatusMove(scan: ScanDetail, to: ScanStatus): void {
   if (scan.status === to) throw new AppError(HTTP.conflict, 'status_unchanged', `The scan is already ${SCAN_STATUS_LABELS[to]}.`);
+  if ((to === 'traced' || to === 'approved') && (scan.status === 'traced' || scan.status === 'approved')) {
+    throw new AppError(
+      HTTP.conflict,
+      'scan_status_follows_ink_lines',
+      `A scan becomes ${SCAN_STATUS_LABELS[to]} through its ink lines: approve or return them in Review.`,
+      { allowed: ALLOWED_STATUS_MOVES[scan.status] },
+    );
+  }
   if (!canMoveStatus(scan.status, to)) {
     throw new AppError(HTTP.conflict, 'status_move_not_allowed', `A scan that is ${SCAN_STATUS_LABELS[scan.status]} cannot become ${SCAN_STATUS_LABELS[to]}.`, {
       allowed: ALLOWED_STATUS_MOVES[scan.status],

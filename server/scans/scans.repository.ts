@@ -233,13 +233,15 @@ export interface ScanForTracing {
   chartStart: Date | null;
   chartOn: Date | null;
   chartOff: Date | null;
+  widthPx: number;
+  heightPx: number;
 }
 
 /** The scan as tracing needs it; `forUpdate` locks it against a concurrent status change in a transaction. */
 export async function findScanForTracing(db: DbOrTrx, scanId: string, { forUpdate }: { forUpdate: boolean }): Promise<ScanForTracing | undefined> {
   const query = db
     .selectFrom('scan')
-    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'chart_on', 'chart_off', 'status'])
+    .select(['id', 'station_id', 'chart_form_id', 'chart_start', 'chart_on', 'chart_off', 'status', 'width_px', 'height_px'])
     .where('id', '=', scanId);
   const row = await (forUpdate ? query.forUpdate() : query).executeTakeFirst();
   return row
@@ -251,6 +253,8 @@ export async function findScanForTracing(db: DbOrTrx, scanId: string, { forUpdat
         chartStart: row.chart_start,
         chartOn: row.chart_on,
         chartOff: row.chart_off,
+        widthPx: row.width_px,
+        heightPx: row.height_px,
       }
     : undefined;
 }

@@ -10,6 +10,10 @@ import * as instrumentsRepository from '../instruments/instruments.repository';
 import type { Storage } from '../storage/storage';
 import { diffScanMetadata, TRACING_FIELDS } from './scan-metadata';
 import { missingForTracing } from '@shared/api/scan-status';
+import { findInkLinesRequired, findScanInkLines } from '../review/ink-line-state.repository';
+import { statusFromInkLines } from '../review/scan-status-from-lines';
+import { recordSeriesChanges } from '../series/series-change';
+import { SERIES_INK_LINE_STATUS } from '../series/series-membership';
 import { checkStatusMove } from './scan-status';
 import type { ScanDeps } from './scan-deps';
 import { PREVIEW_LONGEST_SIDE_PX, writePreview } from './scan-image';
@@ -106,15 +110,40 @@ export async function applyScanMetadata(
   }
 }
 
-/** Moves a scan through the catalogue states, audited in the same transaction. */
+/**
+ * Moves a scan through the catalogue states, audited in the same transaction. Withdrawing takes the scan's
+ * approved ink lines out of its station's series and restoring puts them back (recorded in series_change); a
+ * restored scan comes back to the status its ink lines give (received when it has none handed in).
+ */
 export async function changeScanStatus(db: Db, scanId: string, change: ScanStatusChange, personId: string): Promise<ScanDetail> {
   return db.transaction().execute(async (trx) => {
     const current = await scansRepository.lockScan(trx, scanId);
     if (!current) throw scanNotFound();
     checkStatusMove(current, change.status);
-    const withdrawnReason = change.status === 'withdrawn' ? (change.reason ?? null) : null;
-    await scansRepository.updateScanColumns(trx, scanId, current.version, { status: change.status, withdrawn_reason: withdrawnReason });
-    const changes: Record<string, { before: unknown; after: unknown }> = { status: { before: current.status, after: change.status } };
+    const lines = await findScanInkLines(trx, scanId);
+    const target =
+      current.status === 'withdrawn'
+        ? statusFromInkLines(lines.map((line) => line.status), await findInkLinesRequired(trx, current.stationId), change.status)
+        : change.status;
+    const withdrawnReason = target === 'withdrawn' ? (change.reason ?? null) : null;
+    await scansRepository.updateScanColumns(trx, scanId, current.version, { status: target, withdrawn_reason: withdrawnReason });
+    const wasInSeries = current.status !== 'withdrawn';
+    const isInSeries = target !== 'withdrawn';
+    if (current.stationId && wasInSeries !== isInSeries) {
+      await recordSeriesChanges(
+        trx,
+        lines
+          .filter((line) => line.status === SERIES_INK_LINE_STATUS)
+          .map((line) => ({
+            stationId: current.stationId as string,
+            inkLineId: line.id,
+            change: isInSeries ? ('added' as const) : ('removed' as const),
+            personId,
+            reason: isInSeries ? 'scan restored' : `scan withdrawn: ${withdrawnReason ?? ''}`,
+          })),
+      );
+    }
+    const changes: Record<string, { before: unknown; after: unknown }> = { status: { before: current.status, after: target } };
     if (withdrawnReason !== current.withdrawnReason) changes['withdrawnReason'] = { before: current.withdrawnReason, after: withdrawnReason };
     await auditRepository.insertScanAudit(trx, { scanId, personId, action: 'status', changes });
     return getScan(trx, scanId);

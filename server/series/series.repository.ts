@@ -1,5 +1,6 @@
 import type { SeriesFlag } from '@shared/api/series';
 import type { DbOrTrx } from '../db/database';
+import { inkLineCountsInSeries } from './series-membership';
 
 export interface NewSeriesPoint {
   timeMs: number;
@@ -11,8 +12,6 @@ export interface NewSeriesPoint {
 // 6 parameters a row keeps one insert far below Postgres's 65 535 bind parameters.
 const INSERT_BATCH_ROWS = 2000;
 const READ_BATCH_ROWS = 5000;
-// Only handed-in and approved lines belong to a station series; drafts and returned lines do not.
-const PUBLISHED_INK_LINE_STATUSES = ['handed_in', 'approved'] as const;
 
 export async function insertSeriesPoints(db: DbOrTrx, inkLineId: string, stationId: string, points: NewSeriesPoint[]): Promise<void> {
   for (let start = 0; start < points.length; start += INSERT_BATCH_ROWS) {
@@ -44,12 +43,14 @@ function selectPublishedPoints(db: DbOrTrx, range: SeriesRange) {
   return db
     .selectFrom('series_point')
     .innerJoin('ink_line', 'ink_line.id', 'series_point.ink_line_id')
+    .innerJoin('scan', 'scan.id', 'ink_line.scan_id')
     .select(['series_point.time', 'series_point.pressure_hpa', 'series_point.uncertainty_hpa', 'series_point.flag', 'series_point.ink_line_id'])
     .where('series_point.station_id', '=', range.stationId)
     .where('series_point.time', '>=', new Date(range.fromMs))
     .where('series_point.time', '<=', new Date(range.toMs))
     .where('series_point.pressure_hpa', 'is not', null)
-    .where('ink_line.status', 'in', PUBLISHED_INK_LINE_STATUSES);
+    // Only approved lines of scans that are not withdrawn (series-membership.ts).
+    .where(inkLineCountsInSeries);
 }
 
 /** One stored point of one ink line, as read for merging. */

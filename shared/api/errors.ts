@@ -41,6 +41,30 @@ export type ApiErrorCode =
   | 'person_not_found'
   /** A change that would leave no enabled admin. */
   | 'last_admin'
+  | 'ink_line_not_found'
+  /** Approve or return asked of an ink line that is not waiting for review (a draft, or already decided). */
+  | 'ink_line_not_handed_in'
+  /** Rework asked of an ink line that was not returned. */
+  | 'ink_line_not_returned'
+  /** Only the volunteer who traced a line may rework it. */
+  | 'not_ink_line_author'
+  /** A decision on an ink line of a withdrawn scan; restore the scan first. */
+  | 'scan_withdrawn'
+  /** The scan's traced / approved status follows its ink lines; it is not set by hand. */
+  | 'scan_status_follows_ink_lines'
+  /** Hand-in checks: each names the pins or knots at fault in details. */
+  | 'pin_outside_image'
+  | 'knot_outside_image'
+  | 'knots_out_of_time_order'
+  | 'span_outside_drum_period'
+  | 'pin_rms_over_limit'
+  /** The volunteer already handed in a line of this chart; a cross-trace must come from someone else. */
+  | 'own_chart_cross_trace'
+  /** The volunteer's earlier line of this chart was returned: rework that one instead of starting another. */
+  | 'rework_returned_line_first'
+  /** The chart already has as many independent ink lines as its station needs. */
+  | 'chart_fully_traced'
+  | 'claim_not_found'
   | 'rate_limited'
   /** No mail server is set up, or it refused the mail. */
   | 'mail_unavailable'

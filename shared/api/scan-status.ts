@@ -1,14 +1,15 @@
 import type { ScanDetail, ScanStatus } from './scans';
 
 /**
- * The moves an archivist may make. `traced` is reached by handing in an ink line, not by a status move;
- * any state may be withdrawn (with a reason), and a withdrawn scan is restored to received.
+ * The moves an archivist may make. `traced` and `approved` follow the scan's ink lines (a hand-in, a review
+ * decision), never a status move; any state may be withdrawn (with a reason), and a withdrawn scan is restored
+ * (asked as received; it comes back to the status its ink lines give).
  */
 export const ALLOWED_STATUS_MOVES: Record<ScanStatus, readonly ScanStatus[]> = {
   received: ['ready_to_trace', 'withdrawn'],
   ready_to_trace: ['received', 'withdrawn'],
-  traced: ['approved', 'ready_to_trace', 'withdrawn'],
-  approved: ['traced', 'withdrawn'],
+  traced: ['ready_to_trace', 'withdrawn'],
+  approved: ['withdrawn'],
   withdrawn: ['received'],
 };
 

@@ -141,7 +141,7 @@ export interface ScanBulkEditResult {
 }
 
 /** What a change-log entry records. */
-export const SCAN_CHANGE_ACTIONS = ['upload', 'edit', 'status', 'inventory'] as const;
+export const SCAN_CHANGE_ACTIONS = ['upload', 'edit', 'status', 'inventory', 'review'] as const;
 export type ScanChangeAction = (typeof SCAN_CHANGE_ACTIONS)[number];
 
 /**

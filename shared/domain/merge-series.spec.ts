@@ -30,6 +30,16 @@ describe('mergeChartSeries', () => {
     expect(merged.find((p) => p.timeMs === t0 + hour * hourMs)?.sourceId).toBe(expected);
   });
 
+  it('when two lines of one chart tie on span, then the one with the smaller uncertainty wins (project merge rule)', () => {
+    const first = chart('first', 0, 10, () => 1000, () => ({ uncertaintyHpa: 0.4 }));
+    const second = chart('second', 0, 10, () => 1000.1, () => ({ uncertaintyHpa: 0.2 }));
+
+    const merged = mergeChartSeries([first, second], { coverageFactor: 2 });
+
+    expect(new Set(merged.map((p) => p.sourceId))).toEqual(new Set(['second']));
+    expect(merged.every((p) => p.flag === 'ok')).toBe(true);
+  });
+
   it('when the charts agree within the combined uncertainty, then overlap points keep their flags', () => {
     const merged = mergeChartSeries([chart('A', 0, 10, () => 1000), chart('B', 8, 20, () => 1000.4)]);
 

@@ -23,7 +23,8 @@ export interface MergeOptions {
 /**
  * Merges the series of consecutive charts that overlap at chart changes, one point per time (ascending).
  * At each time the chart whose span is most interior (furthest from its own chart on / off) wins, because
- * the pen line is least reliable where the chart was being fitted or removed. A value beats a gap, and an
+ * the pen line is least reliable where the chart was being fitted or removed; between equally interior charts
+ * (two ink lines of one chart) the smaller uncertainty wins. A value beats a gap, and an
  * on-scale value beats an off-scale one. Where another chart's value differs by more than
  * k·√(u₁² + u₂²), the chosen point is flagged 'suspect'.
  */
@@ -42,7 +43,10 @@ export function mergeChartSeries(series: ChartSeries[], options: MergeOptions = 
   const times = [...byTime.keys()].sort((a, b) => a - b);
   return times.map((timeMs) => {
     const candidates = byTime.get(timeMs) ?? [];
-    const ranked = candidates.slice().sort((a, b) => rank(b, timeMs) - rank(a, timeMs));
+    // Two lines of one chart (a cross-trace) tie on span: then the smaller uncertainty wins.
+    const ranked = candidates
+      .slice()
+      .sort((a, b) => rank(b, timeMs) - rank(a, timeMs) || (a.point.uncertaintyHpa ?? defaultUncertaintyHpa) - (b.point.uncertaintyHpa ?? defaultUncertaintyHpa));
     const chosen = ranked[0];
     if (chosen.point.pressureHpa === null) {
       return { ...chosen.point, flag: 'gap', pressureHpa: null, uncertaintyHpa: null, sourceId: null, disagreementHpa: null };

@@ -54,7 +54,7 @@ describe('demo scenario seed', () => {
     expect(await context.db.selectFrom('station').select('id').execute()).toHaveLength(2);
   });
 
-  it('when the generated weekly sample exists, then Kestrel Ridge has a ready scan and a traced one with a series', async () => {
+  it('when the generated weekly sample exists, then Kestrel Ridge has a ready scan, an approved one with a series and one waiting for review', async () => {
     const result = await seedDemo(context, { fixturesDir: FIXTURES_DIR });
 
     const scans = await context.db
@@ -64,8 +64,14 @@ describe('demo scenario seed', () => {
       .orderBy('scan.status')
       .execute();
     expect(scans).toEqual([
+      { id: result.tracedScanId, status: 'approved', code: 'KRO' },
       { id: result.readyScanId, status: 'ready_to_trace', code: 'KRO' },
-      { id: result.tracedScanId, status: 'traced', code: 'KRO' },
+      { id: result.waitingScanId, status: 'traced', code: 'KRO' },
+    ]);
+    const lines = await context.db.selectFrom('ink_line').select(['scan_id', 'status']).orderBy('status').execute();
+    expect(lines).toEqual([
+      { scan_id: result.tracedScanId, status: 'approved' },
+      { scan_id: result.waitingScanId, status: 'handed_in' },
     ]);
     const { count } = await context.db
       .selectFrom('series_point')
@@ -89,12 +95,14 @@ describe('demo scenario seed', () => {
     const first = await seedDemo(context, { fixturesDir: FIXTURES_DIR });
     await context.db.deleteFrom('demo_seed').execute();
     await context.db.deleteFrom('ink_line').execute();
+    // Stopped after its uploads: the scans were never traced.
+    await context.db.updateTable('scan').set({ status: 'ready_to_trace' }).execute();
 
     const again = await seedDemo(context, { fixturesDir: FIXTURES_DIR });
 
     expect(again).toEqual({ ...first, isSeeded: true });
-    expect(await context.db.selectFrom('scan').select('id').execute()).toHaveLength(2);
-    expect(await context.db.selectFrom('ink_line').select('id').execute()).toHaveLength(1);
+    expect(await context.db.selectFrom('scan').select('id').execute()).toHaveLength(3);
+    expect(await context.db.selectFrom('ink_line').select('id').execute()).toHaveLength(2);
     expect(await context.db.selectFrom('lesson').select('id').execute()).toHaveLength(1);
   });
 });

@@ -196,7 +196,7 @@ describe('handing in an ink line', () => {
     expect(scan.status).toBe('ready_to_trace');
   });
 
-  it('when a second volunteer traces a traced scan, then both ink lines and their points are kept', async () => {
+  it('when a second volunteer hands in a chart whose station needs one line, then it answers 409 chart_fully_traced and keeps the first', async () => {
     const draft = syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START, 2, 6);
     const other = await createPerson(context.db, ['volunteer']);
     const first = await handIn(draft);
@@ -204,10 +204,10 @@ describe('handing in an ink line', () => {
     const second = await request(context.app).post(API.scanInkLines(scanId)).set('Authorization', `Bearer ${other.token}`).send(draft);
 
     expect(first.status).toBe(201);
-    expect(second.status).toBe(201);
-    expect(second.body.inkLineId).not.toBe(first.body.inkLineId);
-    expect(await countRows('ink_line')).toBe(2);
-    expect(await countRows('series_point')).toBe(10);
+    expect(second.status).toBe(409);
+    expect(second.body.error.code).toBe('chart_fully_traced');
+    expect(await countRows('ink_line')).toBe(1);
+    expect(await countRows('series_point')).toBe(5);
   });
 
   it('when the same volunteer hands in a second time, then it answers 409 already_handed_in and stores nothing more', async () => {

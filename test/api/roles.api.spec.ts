@@ -8,7 +8,7 @@ import * as instrumentsRepository from '../../server/instruments/instruments.rep
 import * as intakeRepository from '../../server/intake/intake.repository';
 import * as invitationsRepository from '../../server/people/invitations.repository';
 import * as scansService from '../../server/scans/scans.service';
-import { createChartForm, createPerson, createScanRow, createStation, TEST_PASSWORD, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
+import { createChartForm, createInkLineWithPoints, createPerson, createScanRow, createStation, TEST_PASSWORD, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { makePng } from '../helpers/images';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 import { createTracedFrontScan } from '../helpers/lesson-fixtures';
@@ -56,6 +56,12 @@ describe('who may call each route', () => {
     if (token === null) return null;
     const owner = Object.values(people).find((person) => person.token === token) as TestPerson;
     return (await createPerson(context.db, owner.roles)).token;
+  }
+
+  /** A line of a scan of its own, by the volunteer, for a route that moves it (each call gets a fresh one). */
+  async function freshInkLine(status: 'handed_in' | 'returned'): Promise<string> {
+    const lineScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: PERIOD_START, status: 'traced' });
+    return createInkLineWithPoints(context.db, { scanId: lineScanId, stationId, authorId: people.volunteer.id, status, points: [] });
   }
 
   function withToken(call: request.Test, token: string | null): request.Test {
@@ -279,6 +285,69 @@ describe('who may call each route', () => {
       successStatus: 200,
       call: (token) => withToken(request(context.app).get(API.seriesCsv).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
     },
+    { name: 'GET /api/review', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.review), token) },
+    {
+      name: 'GET /api/ink-lines/:inkLineId/review',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).get(API.inkLineReview(await freshInkLine('handed_in'))), token),
+    },
+    {
+      name: 'POST /api/ink-lines/:inkLineId/approve',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).post(API.inkLineApprove(await freshInkLine('handed_in'))), token).send({ version: 1 }),
+    },
+    {
+      name: 'POST /api/ink-lines/:inkLineId/return',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).post(API.inkLineReturn(await freshInkLine('handed_in'))), token).send({ version: 1, note: 'Pins are a day out.' }),
+    },
+    {
+      name: 'POST /api/ink-lines/:inkLineId/rework',
+      roles: ['volunteer'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).post(API.inkLineRework(await freshInkLine('returned'))), token).send({ version: 1 }),
+    },
+    { name: 'GET /api/desk/summary', roles: ['volunteer'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.deskSummary), token) },
+    {
+      name: 'GET /api/desk/lines',
+      roles: ['volunteer'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.deskLines).query({ section: 'returned' }), token),
+    },
+    { name: 'POST /api/desk/next', roles: ['volunteer'], successStatus: 200, call: (token) => withToken(request(context.app).post(API.deskNext), token) },
+    {
+      name: 'DELETE /api/desk/claims/:scanId',
+      roles: ['volunteer'],
+      successStatus: 204,
+      call: async (token) => {
+        const claimed = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: PERIOD_START });
+        await context.db.insertInto('chart_claim').values({ scan_id: claimed, person_id: people.volunteer.id, expires_at: new Date(Date.now() + 3_600_000) }).execute();
+        return withToken(request(context.app).delete(API.deskClaim(claimed)), token);
+      },
+    },
+    {
+      name: 'GET /api/tracing/progress',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.tracingProgress).query({ groupBy: 'box' }), token),
+    },
+    { name: 'GET /api/tracing/priorities', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.tracingPriorities), token) },
+    {
+      name: 'PUT /api/tracing/priorities',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).put(API.tracingPriorities), token).send({ scope: 'box', collection: 'ROLE', box: '1', priority: 5 }),
+    },
+    { name: 'GET /api/tracing/stations/:stationId', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.stationTracing(stationId)), token) },
+    {
+      name: 'PUT /api/tracing/stations/:stationId',
+      roles: ['archivist'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).put(API.stationTracing(stationId)), token).send({ inkLinesRequired: 1 }),
+    },
     { name: 'GET /api/people', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.people), token) },
     { name: 'GET /api/people/changes', roles: ['admin'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.peopleChanges), token) },
     {
@@ -433,7 +502,8 @@ describe('who may call each route', () => {
     stationId = (await createStation(context.db)).id;
     chartFormId = (await createChartForm(context.db)).id;
     const tempPath = context.storage.newTempPath('.upload');
-    await fs.writeFile(tempPath, await makePng(300, 200));
+    // Large enough to hold the synthetic weekly placement: the hand-in refuses pins and knots off the image.
+    await fs.writeFile(tempPath, await makePng(1600, 800));
     instrumentId = (await instrumentsRepository.insertInstrument(context.db, stationId, { serial: 'I-1', maker: '', installedOn: null, removedOn: null, notes: '' })).id;
     editableFormId = (await createChartForm(context.db)).id;
     batchId = (await intakeRepository.insertBatch(context.db, 'roles', people.archivist.id)) as string;

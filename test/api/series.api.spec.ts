@@ -336,6 +336,7 @@ describe('uncertainty of a handed-in trace', () => {
   let context: TestContext;
   let climatologist: TestPerson;
   let volunteer: TestPerson;
+  let archivist: TestPerson;
   let stationId: string;
   let scanId: string;
 
@@ -344,6 +345,7 @@ describe('uncertainty of a handed-in trace', () => {
     await truncateTables(context.db);
     climatologist = await createPerson(context.db, ['climatologist']);
     volunteer = await createPerson(context.db, ['volunteer']);
+    archivist = await createPerson(context.db, ['archivist']);
     stationId = (await createStation(context.db)).id;
     const form = await createChartForm(context.db);
     scanId = await createScanRow(context.db, { stationId, chartFormId: form.id, uploadedBy: volunteer.id, chartStart: '2026-03-02T00:00:00Z' });
@@ -354,9 +356,10 @@ describe('uncertainty of a handed-in trace', () => {
     await context.close();
   });
 
-  it('when a trace is handed in, then each point is stored and served with the pen line centring and registration uncertainty', async () => {
+  it('when a trace is handed in and approved, then each point is stored and served with the pen line centring and registration uncertainty', async () => {
     const draft = syntheticDraft(TEST_WEEKLY_FORM, '2026-03-02T00:00:00Z', 2, 26);
     const handedIn = await request(context.app).post(API.scanInkLines(scanId)).set('Authorization', `Bearer ${volunteer.token}`).send(draft);
+    await request(context.app).post(API.inkLineApprove(handedIn.body.inkLineId)).set('Authorization', `Bearer ${archivist.token}`).send({ version: handedIn.body.version }).expect(200);
 
     const response = await request(context.app)
       .get(API.series)

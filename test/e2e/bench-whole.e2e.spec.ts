@@ -15,6 +15,7 @@ import { createDb } from '../../server/db/create-db';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import type { RunningServer } from '../../server/server';
 import { chooseOption, launchChromium, signIn, signOut, type BrowserSession } from '../helpers/browser';
+import { putScanFirstInQueue } from '../helpers/api-client';
 import { startE2eServer } from '../helpers/e2e-server';
 
 const CHART_START = '2026-05-04T00:00:00Z';
@@ -112,13 +113,16 @@ describe('the Bench, whole', () => {
     await page.getByTestId('upload-submit').click();
     await page.getByTestId('upload-result').filter({ hasText: /stored/i }).waitFor();
     await signOut(page);
+    const scanId = await putScanFirstInQueue(server.url, 'Saltmere Bay School');
     await signIn(page, server.url, 'volunteer@isallo.test', DEMO_PASSWORD);
     await page.getByTestId('nav-desk').click();
     const effort = new Effort(page);
 
-    // Act 1, Pin: four crossings, each time and pressure typed, Enter saves.
-    await page.getByTestId('desk-row').filter({ hasText: 'Saltmere Bay School' }).getByTestId('trace-link').click();
-    effort.clicks++;
+    // Act 1, Pin: Next chart claims it, then four crossings, each time and pressure typed, Enter saves.
+    await page.getByTestId('next-chart').click();
+    await page.locator(`[data-testid="desk-claim"][data-scan-id="${scanId}"]`).waitFor();
+    await page.getByTestId('claim-open').click();
+    effort.clicks += 2;
     await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
     let view = await readStageView(page);
     for (const pin of json.pins.slice(0, 4)) {

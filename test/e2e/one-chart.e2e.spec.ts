@@ -1,6 +1,8 @@
 /**
- * One chart, end to end through the real UI: an archivist uploads a generated scan, a volunteer pins its
- * grid and clicks along the pen line on the Bench, and a climatologist downloads the station series as CSV.
+ * One chart, end to end through the real UI: an archivist uploads a generated scan, a volunteer takes it from
+ * the Desk's queue, pins its grid and clicks along the pen line on the Bench and hands it in; the archivist
+ * returns it with a note, the volunteer reworks it and hands it in again, the archivist approves it, and only
+ * then does the climatologist's station series (and its CSV) hold the line.
  * The chart is invented by fixtures/generator, so the true pressure at every hour is known.
  */
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
@@ -9,6 +11,7 @@ import type { Page } from 'playwright-core';
 import { generateChart } from '../../fixtures/generator/generate-chart';
 import { pixelFromReading } from '../../fixtures/generator/sheet-layout';
 import type { RunningServer } from '../../server/server';
+import { apiCall, tokenFor } from '../helpers/api-client';
 import { startE2eServer } from '../helpers/e2e-server';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import { chooseOption, launchChromium, signIn, signOut, type BrowserSession } from '../helpers/browser';
@@ -58,7 +61,7 @@ describe('one chart from upload to station series', () => {
     rmSync(workDir, { recursive: true, force: true });
   });
 
-  it('when an archivist uploads, a volunteer traces and a climatologist exports, then the CSV holds the traced pressures', async () => {
+  it('when a volunteer hands in, the archivist returns it, the volunteer reworks it and the archivist approves it, then the CSV holds the traced pressures and not before', async () => {
     // Arrange: an invented weekly chart at 150 dpi, with its grid crossings and true pressures known.
     const chart = await generateChart({ seed: 23, dpi: 150, chartStart: CHART_START });
     const scanPath = join(workDir, 'saltmere-week-15.png');
@@ -90,36 +93,90 @@ describe('one chart from upload to station series', () => {
     await page.getByTestId('catalogue-row').filter({ hasText: 'saltmere-week-15.png' }).waitFor();
     await signOut(page);
 
-    // Act 2: the volunteer pins four grid crossings and clicks knots along the pen line.
+    // The demo's own ready chart is older and would come first: the archivist puts this one ahead in the queue.
+    const archivistToken = await tokenFor(server.url, 'archivist@isallo.test');
+    const climatologistToken = await tokenFor(server.url, 'climatologist@isallo.test');
+    const stations = await apiCall<{ items: { id: string; name: string }[] }>(server.url, archivistToken, '/api/stations?pageSize=200');
+    const saltmereId = stations.items.find((station) => station.name === 'Saltmere Bay School')!.id;
+    // The demo has no Saltmere Bay School scans: the one there is the one just uploaded.
+    const found = await apiCall<{ items: { id: string }[] }>(server.url, archivistToken, `/api/scans?stationId=${saltmereId}`);
+    const scanId = found.items[0].id;
+    await apiCall(server.url, archivistToken, '/api/tracing/priorities', { method: 'PUT', body: JSON.stringify({ scope: 'scan', scanId, priority: 10 }) });
+    const seriesPoints = async () =>
+      (await apiCall<{ points: unknown[] }>(server.url, climatologistToken, `/api/series?stationId=${saltmereId}&from=2026-04-06&to=2026-04-12`)).points.length;
+
+    // Act 2: the volunteer takes the next chart, pins four grid crossings and clicks knots along the pen line.
+    const traceOnBench = async () => {
+      await page.getByTestId('scan-stage').locator('canvas').first().waitFor();
+      await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
+      let view = await readStageView(page);
+      // A reworked line may come back onto the Bench with its pins and knots; only an empty Bench is traced again.
+      if ((await page.getByTestId('pin-row').count()) === 0) {
+        await page.getByTestId('mode-pin').click();
+        for (const pin of pins.slice(0, 4)) {
+          const at = toScreen(view, pin);
+          await page.mouse.click(at.x, at.y);
+          await page.getByTestId('pin-time').fill(pin.time.replace(':00Z', 'Z'));
+          await page.getByTestId('pin-pressure').fill(String(pin.pressure));
+          await page.getByTestId('pin-save').click();
+        }
+      }
+      await expectCount(page, 'pin-row', 4);
+      view = await readStageView(page);
+      await page.getByTestId('mode-ink').click();
+      if ((await page.getByTestId('knot-count').getAttribute('data-count')) === '0') {
+        for (const hours of knotHours) {
+          const at = toScreen(view, pixelFromReading(chart.layout, { hours, pressure: chart.scene.story.pressureHpaAt(hours) }));
+          await page.mouse.click(at.x, at.y);
+        }
+      }
+      await page.getByTestId('knot-count').filter({ hasText: String(knotHours.length) }).waitFor();
+      await page.getByTestId('hand-in').click();
+      const result = page.getByTestId('hand-in-result');
+      await result.waitFor();
+      return Number(await result.getAttribute('data-point-count'));
+    };
     await signIn(page, server.url, 'volunteer@isallo.test', DEMO_PASSWORD);
     await page.getByTestId('nav-desk').click();
-    await page.getByTestId('desk-row').filter({ hasText: 'Saltmere Bay School' }).getByTestId('trace-link').click();
-    await page.getByTestId('scan-stage').locator('canvas').first().waitFor();
-    await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
-    let view = await readStageView(page);
-    await page.getByTestId('mode-pin').click();
-    for (const pin of pins.slice(0, 4)) {
-      const at = toScreen(view, pin);
-      await page.mouse.click(at.x, at.y);
-      await page.getByTestId('pin-time').fill(pin.time.replace(':00Z', 'Z'));
-      await page.getByTestId('pin-pressure').fill(String(pin.pressure));
-      await page.getByTestId('pin-save').click();
-    }
-    await expectCount(page, 'pin-row', 4);
-    view = await readStageView(page);
-    await page.getByTestId('mode-ink').click();
-    for (const hours of knotHours) {
-      const at = toScreen(view, pixelFromReading(chart.layout, { hours, pressure: chart.scene.story.pressureHpaAt(hours) }));
-      await page.mouse.click(at.x, at.y);
-    }
-    await page.getByTestId('knot-count').filter({ hasText: String(knotHours.length) }).waitFor();
-    await page.getByTestId('hand-in').click();
-    const result = page.getByTestId('hand-in-result');
-    await result.waitFor();
-    const handedInPointCount = Number(await result.getAttribute('data-point-count'));
+    await page.getByTestId('next-chart').click();
+    await page.locator(`[data-testid="desk-claim"][data-scan-id="${scanId}"]`).waitFor();
+    await page.getByTestId('claim-open').click();
+    await traceOnBench();
+    await signOut(page);
+    const pointsAfterHandIn = await seriesPoints();
+
+    // Act 3: the archivist returns it from Review with a note.
+    await signIn(page, server.url, 'archivist@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-archive').click();
+    await page.getByTestId('archive-tab-review').click();
+    await page.getByTestId('review-row').filter({ hasText: 'saltmere-week-15.png' }).getByTestId('review-open').click();
+    await page.getByTestId('review-ink').waitFor();
+    await page.getByTestId('review-note').fill('Please check the pins against the printed grid once more.');
+    await page.getByTestId('review-return').click();
+    await page.getByTestId('review-done').waitFor();
+    await signOut(page);
+    const pointsAfterReturn = await seriesPoints();
+
+    // Act 4: the volunteer sees it returned with the note, reworks it on the Bench and hands it in again.
+    await signIn(page, server.url, 'volunteer@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-desk').click();
+    const returnedRow = page.getByTestId('desk-returned-table').getByTestId('desk-line').filter({ hasText: 'saltmere-week-15.png' });
+    await returnedRow.getByTestId('return-note').filter({ hasText: 'check the pins against the printed grid' }).waitFor();
+    await returnedRow.getByTestId('rework').click();
+    const handedInPointCount = await traceOnBench();
+    await signOut(page);
+    const pointsBeforeApproval = await seriesPoints();
+
+    // Act 5: the archivist approves it.
+    await signIn(page, server.url, 'archivist@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-archive').click();
+    await page.getByTestId('archive-tab-review').click();
+    await page.getByTestId('review-row').filter({ hasText: 'saltmere-week-15.png' }).getByTestId('review-open').click();
+    await page.getByTestId('review-approve').click();
+    await page.getByTestId('review-line-status').filter({ hasText: 'approved' }).waitFor();
     await signOut(page);
 
-    // Act 3: the climatologist shows the week and downloads it.
+    // Act 6: the climatologist shows the week and downloads it.
     await signIn(page, server.url, 'climatologist@isallo.test', DEMO_PASSWORD);
     await page.getByTestId('nav-series').click();
     await chooseOption(page, 'series-station', 'Saltmere Bay School');
@@ -153,6 +210,8 @@ describe('one chart from upload to station series', () => {
       expect(flag).toBe('interpolated');
     }
     expect(handedInPointCount).toBe(body.length);
+    // Not before: the handed-in, returned and re-handed-in line reached no series until it was approved.
+    expect([pointsAfterHandIn, pointsAfterReturn, pointsBeforeApproval]).toEqual([0, 0, 0]);
     await page.close();
   });
 });

@@ -115,7 +115,7 @@ export async function createScanRow(
   return id;
 }
 
-/** An ink line with the given series points, written straight to the tables (for series reads). */
+/** An ink line with the given series points, written straight to the tables (for series reads); approved unless told. */
 export async function createInkLineWithPoints(
   db: Db,
   line: {
@@ -145,7 +145,7 @@ export async function createInkLineWithPoints(
       scan_id: line.scanId,
       pin_set_id: pinSetId,
       author_id: line.authorId,
-      status: line.status ?? 'handed_in',
+      status: line.status ?? 'approved',
       knots: JSON.stringify([]),
     })
     .returning('id')

@@ -4,6 +4,7 @@ import type { InkLineDraft } from '@shared/api/ink-lines';
 import type { ChartForm } from '@shared/domain/chart-form';
 import { readingToPixel } from '@shared/domain/registration';
 import * as inkLinesService from '../../server/ink-lines/ink-lines.service';
+import * as reviewService from '../../server/review/review.service';
 import * as scansService from '../../server/scans/scans.service';
 import { makePng } from './images';
 import type { TestContext } from './test-app';
@@ -41,6 +42,7 @@ export async function createTracedFrontScan(
   context: TestContext,
   scan: { stationId: string; chartFormId: string; form: ChartForm; chartStart: string; archivistId: string; volunteerId: string },
 ): Promise<{ scanId: string; inkLineId: string }> {
+  // Handed in, then approved by the archivist: only approved lines reach the station series a lesson reads.
   const tempPath = context.storage.newTempPath('.upload');
   await fs.writeFile(tempPath, await makePng(1800, 720));
   const uploaded = await scansService.uploadScan(
@@ -56,5 +58,6 @@ export async function createTracedFrontScan(
     { work: { ...EMPTY_BENCH_WORK, ...frontDraft(scan.form, scan.chartStart) }, draftVersion: null },
     scan.volunteerId,
   );
+  await reviewService.approveInkLine(context.db, saved.inkLineId, { version: saved.version }, scan.archivistId);
   return { scanId: uploaded.id, inkLineId: saved.inkLineId };
 }

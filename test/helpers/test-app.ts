@@ -97,6 +97,11 @@ export async function createTestContext(overrides: Partial<Config> = {}): Promis
 }
 
 const APP_TABLES: (keyof Database)[] = [
+  'chart_claim',
+  'trace_priority',
+  'station_tracing',
+  'cross_trace_agreement',
+  'ink_line_review',
   'scan_audit',
   'intake_file',
   'intake_batch',

@@ -15,6 +15,8 @@ export const archiveRoutes: Routes = [
       // "new" is matched before the id so a new form is not looked up as a form called "new".
       { path: 'chart-forms/new', title: 'New chart form · Isallo', loadComponent: () => import('./chart-form-page/chart-form-page').then((m) => m.ChartFormPage) },
       { path: 'chart-forms/:chartFormId', title: 'Chart form · Isallo', loadComponent: () => import('./chart-form-page/chart-form-page').then((m) => m.ChartFormPage) },
+      { path: 'review', title: 'Review · Isallo', loadComponent: () => import('./review-list/review-list').then((m) => m.ReviewList) },
+      { path: 'review/:inkLineId', title: 'Review an ink line · Isallo', loadComponent: () => import('./review-page/review-page').then((m) => m.ReviewPage) },
       { path: 'scans/:scanId', title: 'Scan · Isallo', loadComponent: () => import('./scan-page/scan-page').then((m) => m.ScanPage) },
     ],
   },

@@ -14,12 +14,13 @@ interface ArchiveTab {
 
 const TABS: readonly ArchiveTab[] = [
   { path: '/archive', label: 'Catalogue', icon: 'table_rows', testId: 'archive-tab-catalogue', exact: true },
+  { path: '/archive/review', label: 'Review', icon: 'fact_check', testId: 'archive-tab-review', exact: false },
   { path: '/archive/intake', label: 'Intake', icon: 'move_to_inbox', testId: 'archive-tab-intake', exact: false },
   { path: '/archive/stations', label: 'Stations', icon: 'location_on', testId: 'archive-tab-stations', exact: false },
   { path: '/archive/chart-forms', label: 'Chart forms', icon: 'grid_on', testId: 'archive-tab-chart-forms', exact: false },
 ];
 
-/** The Archive's tabs (catalogue, intake, registers) above the page of the chosen one. */
+/** The Archive's tabs (catalogue, review, intake, registers) above the page of the chosen one. */
 @Component({
   selector: 'isl-archive-layout',
   imports: [MatTabsModule, MatIconModule, RouterLink, RouterLinkActive, RouterOutlet],

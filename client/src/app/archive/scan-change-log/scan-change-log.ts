@@ -15,7 +15,7 @@ interface AuditView {
   failure: string | null;
 }
 
-const ACTION_LABELS: Record<ScanChangeLogEntry['action'], string> = { upload: 'uploaded', edit: 'edited', status: 'status changed', inventory: 'filled from the inventory' };
+const ACTION_LABELS: Record<ScanChangeLogEntry['action'], string> = { upload: 'uploaded', edit: 'edited', status: 'status changed', inventory: 'filled from the inventory', review: 'ink line reviewed' };
 
 /** The scan's change log: who changed what and when, newest first, with each field's value before and after. */
 @Component({

@@ -19,6 +19,7 @@ import { ScanStatusChip } from '../../shared/scan-status-chip/scan-status-chip';
 import { CloseView } from '../close-view/close-view';
 import { ScanChangeLog } from '../scan-change-log/scan-change-log';
 import { ScanMetadataForm } from '../scan-metadata-form/scan-metadata-form';
+import { TracingSettings } from '../tracing-settings/tracing-settings';
 import { ScanStatusActions } from '../scan-status-actions/scan-status-actions';
 
 /** While the worker makes the derivatives, look again this often. */
@@ -49,6 +50,7 @@ interface ScanView {
     ScanChangeLog,
     ScanMetadataForm,
     ScanStatusActions,
+    TracingSettings,
   ],
   templateUrl: './scan-page.html',
   styleUrl: './scan-page.scss',

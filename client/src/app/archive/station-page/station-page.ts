@@ -13,11 +13,12 @@ import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { InstrumentDialog, type InstrumentDialogData } from '../instrument-dialog/instrument-dialog';
 import { StationDialog, type StationDialogData } from '../station-dialog/station-dialog';
+import { TracingSettings } from '../tracing-settings/tracing-settings';
 
-/** One station: its facts and history, and the barographs it used. */
+/** One station: its facts and history, its tracing setting, and the barographs it used. */
 @Component({
   selector: 'isl-station-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatTableModule],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatTableModule, TracingSettings],
   templateUrl: './station-page.html',
   styleUrl: './station-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
