@@ -74,6 +74,7 @@ export function digitizeChart(image: RawImage, chart: ChartFile, options: Digiti
   let trailingGap = false;
   for (const span of trace.spans) {
     if (span.kind === 'off_scale') offScale.fill(1, span.startIndex, span.endIndex + 1);
+    else if (span.kind !== 'gap') continue;
     else if (span.startIndex < 0) leadingGap = true;
     else if (span.endIndex >= n) trailingGap = true;
     else breakBefore[span.endIndex] = 1;

@@ -17,11 +17,11 @@ export interface FollowedKnot {
 }
 
 /**
- * A flagged span of the followed line, by knot index. Gap: the last knot before and the first after
- * (−1 / knot count when it runs off an end). Off-scale: the first and last knot inside.
+ * A named span of the followed line, by knot index. Gap and time mark: the last knot before and the first after
+ * (−1 / knot count when it runs off an end). Off-scale and jump: the first and last knot inside.
  */
 export interface FollowedSpan {
-  kind: 'gap' | 'off_scale';
+  kind: 'gap' | 'off_scale' | 'jump' | 'time_mark';
   fromIndex: number;
   toIndex: number;
 }
