@@ -221,7 +221,10 @@ async function main(): Promise<void> {
   const only = process.argv.find((a) => a.startsWith('--only='))?.slice('--only='.length).toLowerCase();
   const directory = join(tmpdir(), `isallo-bench-${process.pid}`);
   await mkdir(directory, { recursive: true });
-  const cases = CASES.filter((c) => !(quick && c.isLarge) && (only === undefined || c.name.toLowerCase().includes(only)));
+  // --only=a|b runs the cases whose names hold any of the parts; --only=old runs the rows recorded before issue 10.
+  const parts = only?.split('|');
+  const matches = (c: BenchCase) => parts === undefined || parts.some((part) => (part === 'old' ? OLD_CASES.includes(c) : c.name.toLowerCase().includes(part)));
+  const cases = CASES.filter((c) => !(quick && c.isLarge) && matches(c));
   if (cases.length === 0) throw new Error(`no bench case matches --only=${only}`);
   const baseline = await readBaseline();
   const rows: string[][] = [];

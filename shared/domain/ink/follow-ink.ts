@@ -81,7 +81,11 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
     ...jumpSpans(trace),
     ...timeMarkSpans(trace, timeMarks, line.widthPx),
   ].sort((a, b) => a.startXPx - b.startXPx);
+  const gapPx = spans.filter((s) => s.kind === 'gap').reduce((sum, s) => sum + Math.max(0, s.endXPx - s.startXPx), 0);
+  const coverage = trace.x.length === 0 ? 0 : Math.max(0, Math.min(1, 1 - gapPx / Math.max(1, window.x1 - window.x0)));
   return {
+    coverage,
+    problem: problemOf(trace.x.length, coverage, contrast.reason),
     xPx: Float64Array.from(trace.x),
     yPx: Float64Array.from(trace.y),
     confidence: Float32Array.from(trace.confidence),
@@ -92,6 +96,17 @@ export function followInk(image: RawImage, form: ChartForm, fit: RegistrationFit
     contrastReason: contrast.reason,
   };
 }
+/** Below this share of the span found, Follow ink says the line was mostly not found. */
+export const MIN_COVERAGE = 0.5;
+
+function problemOf(points: number, coverage: number, reason: string): string | null {
+  if (points === 0) return `No pen line was found in the chart span (${reason}). Check the pins, or click on the line to give its colour.`;
+  if (coverage < MIN_COVERAGE) {
+    return `The pen line was found over only ${Math.round(100 * coverage)} % of the chart span (${reason}). Check the pins, or click on the line to give its colour.`;
+  }
+  return null;
+}
+
 function clampRow(window: ChartWindow, y: number): number {
   return Math.min(window.rowShift.length - 1, Math.max(0, Math.floor(y)));
 }

@@ -82,3 +82,24 @@ describe('slidingMax', () => {
     expect(Array.from(slidingMax(Float32Array.from([1, 3, 2, 0, 0, 5]), 1))).toEqual([3, 3, 3, 2, 5, 5]);
   });
 });
+
+describe('no silent failure', () => {
+  it('when the chart holds no pen line, then Follow ink says so and reports no coverage', () => {
+    const image = blankScan(3);
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23 });
+
+    expect(trace.coverage).toBeLessThan(0.5);
+    expect(trace.problem).toMatch(/pen line was found over only|No pen line was found/);
+  });
+
+  it('when the line is drawn over the whole span, then there is no problem to report', () => {
+    const image = blankScan(3);
+    drawFaded(image, [59, 44, 134], 1, 23);
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23 });
+
+    expect(trace.coverage).toBeGreaterThan(0.95);
+    expect(trace.problem).toBeNull();
+  });
+});

@@ -40,6 +40,10 @@ export interface InkTrace {
    */
   contrastMode: InkModel;
   contrastReason: string;
+  /** Share (0–1) of the asked span of time the line was found over (outside gap spans). */
+  coverage: number;
+  /** Why the result should not be trusted as a line (none found, or only a small share of the span); null when fine. */
+  problem: string | null;
 }
 
 /** True when points i and i + 1 are separated by a gap span. */
