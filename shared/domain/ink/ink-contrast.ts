@@ -49,6 +49,8 @@ const LAB_LEAKAGE_SHARE = 1 / 3;
 const MIN_LINEAR_SHARE = 0.3;
 // Ink and full grid closer than this (ΔE-like, RGB units) cannot be told apart by colour: darker than the grid.
 const MIN_INK_GRID_DISTANCE = 12;
+// Grey levels of channel spread below which a colour scan is taken as grey.
+const MIN_HUE_LEVELS = 6;
 const MIN_THRESHOLD = 0.14;
 
 interface Samples {
@@ -312,7 +314,10 @@ function colourContrast(
   const gridColour = fullGridColour(dr, dg, db, n, darkLimit, grid, paper);
   const inkColour: [number, number, number] = [paper[0] - labInk[0], paper[1] - labInk[1], paper[2] - labInk[2]];
   const distance = Math.hypot(inkColour[0] - gridColour[0], inkColour[1] - gridColour[1], inkColour[2] - gridColour[2]);
-  if (distance < MIN_INK_GRID_DISTANCE) return linear;
+  // A grey scan stored as RGB has no hue to tell ink from grid: darker than the grid is all there is.
+  const hueOf = (c: readonly number[]) => Math.max(c[0], c[1], c[2]) - Math.min(c[0], c[1], c[2]);
+  const paperHue = hueOf(paper);
+  if (distance < MIN_INK_GRID_DISTANCE || Math.max(Math.abs(hueOf(inkColour) - paperHue), Math.abs(hueOf(gridColour) - paperHue)) < MIN_HUE_LEVELS) return linear;
   const lab = labContrast(samples, dr, dg, db, n, darkLimit, paper, gridColour, inkColour, given !== undefined, share, source);
   if (linear === null) return lab;
   // Both could work. The linear model is the proven one; the CIELAB model takes over when it lets clearly fewer of
