@@ -34,6 +34,8 @@ async function main(): Promise<void> {
   const started = performance.now();
   const scan = await loadScan(args.scan);
   const result = digitizeChart(scan.image, parsed.value, { stepMinutes });
+  // A series without a line is not a result: say why and write nothing.
+  if (result.trace.problem !== null) throw new Error(`${args.scan}: ${result.trace.problem} No series written.`);
   await writeFile(args.out, formatSeriesCsv(result.series));
   const flags = new Map<string, number>();
   for (const p of result.series) flags.set(p.flag, (flags.get(p.flag) ?? 0) + 1);
@@ -41,7 +43,7 @@ async function main(): Promise<void> {
   process.stdout.write(
     `${args.out}: ${result.series.length} points (${summary}); registration ${result.registration.model}, ` +
       `rms ${result.registration.rmsHpa.toFixed(2)} hPa / ${result.registration.rmsMinutes.toFixed(1)} min; ` +
-      `ink ${result.trace.contrastMode}, line ${result.trace.lineWidthPx.toFixed(1)} px, ${result.trace.timeMarks.length} time marks found; ` +
+      `ink ${result.trace.contrastMode} (${result.trace.contrastReason}), ${Math.round(100 * result.trace.coverage)} % of the span, line ${result.trace.lineWidthPx.toFixed(1)} px, ${result.trace.timeMarks.length} time marks found; ` +
       `clock ${result.clock?.method ?? 'none'}, instrument ${result.instrument?.method ?? 'none'}; ` +
       `image from ${scan.source}; ${(performance.now() - started).toFixed(0)} ms\n`,
   );

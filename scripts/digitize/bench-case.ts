@@ -1,6 +1,6 @@
 /**
  * One bench case in its own process, so that its peak memory is its own:
- *   tsx scripts/digitize/bench-case.ts <scan> <chart.json> <series-out.json> <repeats>
+ *   tsx scripts/digitize/bench-case.ts <scan> <chart.json> <series-out.json> <repeats> [<warm-up runs>]
  * Prints one JSON line: the first (cold) pipeline time, medians of decode and of warm pipeline runs, and the
  * peak RSS after the first run.
  */
@@ -19,8 +19,9 @@ function median(values: number[]): number {
 }
 
 async function main(): Promise<void> {
-  const [scanPath, chartPath, outPath, repeatsText] = process.argv.slice(2);
+  const [scanPath, chartPath, outPath, repeatsText, warmUpText] = process.argv.slice(2);
   const repeats = Math.max(1, Number(repeatsText ?? '3'));
+  const warmUpRuns = warmUpText === undefined ? WARM_UP_RUNS : Math.max(0, Number(warmUpText));
   const parsed = parseChartFile(JSON.parse(await readFile(chartPath, 'utf8')));
   if (!parsed.ok) throw new Error(parsed.problems.join('; '));
   const chart = parsed.value;
@@ -35,7 +36,7 @@ async function main(): Promise<void> {
   const first = await runPipeline();
   const peakRssMb = process.resourceUsage().maxRSS / 1024;
   // Untimed runs first: the first few mostly measure V8 compiling the hot loops, which a server does once.
-  for (let i = 0; i < WARM_UP_RUNS; i++) await runPipeline();
+  for (let i = 0; i < warmUpRuns; i++) await runPipeline();
   const pipelineMs: number[] = [];
   const decodeMs: number[] = [];
   for (let i = 0; i < repeats; i++) {
@@ -53,6 +54,7 @@ async function main(): Promise<void> {
       samples: result.samples.map((s) => [s.timeMs, s.pressureHpa]),
       matchedMarks: result.matchedMarks,
       spans: result.trace.spans,
+      contrastMode: result.trace.contrastMode,
       clockMethod: result.clock?.method ?? 'none',
       instrumentMethod: result.instrument?.method ?? 'none',
     }),

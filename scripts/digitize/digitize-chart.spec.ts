@@ -20,6 +20,9 @@ function chartFileOf(json: unknown): ChartFile {
   return parsed.value;
 }
 
+// Each case draws and digitizes a whole generated chart: on a shared, loaded machine that takes longer than jest's 5 s default.
+jest.setTimeout(30_000);
+
 describe('digitizeChart', () => {
   it('when the committed demo chart is digitized, then the hourly series matches its truth within 0.15 hPa', async () => {
     const scan = await loadScan(join(SAMPLES, 'demo-weekly.png'));

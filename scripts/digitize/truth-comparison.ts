@@ -106,3 +106,65 @@ export function steepestRiseTimeMs(samples: TimedPressure[], aroundMs: number, w
   }
   return at;
 }
+
+/**
+ * When the line crosses `levelHpa` in the given direction (+1 rising, −1 falling), by linear interpolation
+ * between samples: the crossing nearest `aroundMs` within ±windowMs; null when the line does not cross there.
+ * For a pressure jump the level is the truth's at the jump's middle, so this is the jump's time on the line.
+ */
+export function crossingTimeMs(samples: TimedPressure[], levelHpa: number, direction: 1 | -1, aroundMs: number, windowMs: number): number | null {
+  let best: number | null = null;
+  for (let i = 1; i < samples.length; i++) {
+    const a = samples[i - 1];
+    const b = samples[i];
+    if (b.timeMs < aroundMs - windowMs || a.timeMs > aroundMs + windowMs) continue;
+    const da = direction * (a.pressureHpa - levelHpa);
+    const db = direction * (b.pressureHpa - levelHpa);
+    if (!(da < 0 && db >= 0)) continue;
+    const at = b.timeMs === a.timeMs ? a.timeMs : a.timeMs + ((b.timeMs - a.timeMs) * -da) / (db - da);
+    if (best === null || Math.abs(at - aroundMs) < Math.abs(best - aroundMs)) best = at;
+  }
+  return best;
+}
+
+export interface WindowError {
+  rmsHpa: number;
+  maxErrorHpa: number;
+  /** Times of the regular grid that fell on the line (not in a gap). */
+  compared: number;
+  /** Times of the regular grid in the window. */
+  asked: number;
+}
+
+/**
+ * The line against an exact truth on a regular grid of `stepMs` over [fromMs, toMs], as a series at that step
+ * would give it (linear between samples). A grid time counts only where the samples around it are at most
+ * `maxSpacingMs` apart (elsewhere the series would show a gap).
+ */
+export function windowError(
+  samples: TimedPressure[],
+  truthHpaAt: (timeMs: number) => number,
+  fromMs: number,
+  toMs: number,
+  stepMs: number,
+  maxSpacingMs = 30 * 60_000,
+): WindowError {
+  let sum = 0;
+  let max = 0;
+  let compared = 0;
+  let asked = 0;
+  let i = 0;
+  for (let t = fromMs; t <= toMs; t += stepMs) {
+    asked++;
+    while (i < samples.length - 2 && samples[i + 1].timeMs < t) i++;
+    const a = samples[i];
+    const b = samples[i + 1];
+    if (a === undefined || b === undefined || a.timeMs > t || b.timeMs < t || b.timeMs - a.timeMs > maxSpacingMs) continue;
+    const f = b.timeMs === a.timeMs ? 0 : (t - a.timeMs) / (b.timeMs - a.timeMs);
+    const error = a.pressureHpa + f * (b.pressureHpa - a.pressureHpa) - truthHpaAt(t);
+    sum += error * error;
+    max = Math.max(max, Math.abs(error));
+    compared++;
+  }
+  return { rmsHpa: compared > 0 ? Math.sqrt(sum / compared) : NaN, maxErrorHpa: max, compared, asked };
+}

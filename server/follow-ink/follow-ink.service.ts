@@ -37,7 +37,16 @@ export async function followScanInk(db: Db, storage: Storage, scanId: string, re
     seed: request.seed,
   });
   const { knots, spans } = thinTrace(trace, KNOT_SPACING_MM * pixelsPerMm(form, fit));
-  return { knots, spans, lineWidthPx: trace.lineWidthPx, elapsedMs: Date.now() - startedMs };
+  return {
+    knots,
+    spans,
+    lineWidthPx: trace.lineWidthPx,
+    elapsedMs: Date.now() - startedMs,
+    inkModel: trace.contrastMode,
+    inkModelReason: trace.contrastReason,
+    coverage: trace.coverage,
+    problem: trace.problem,
+  };
 }
 
 function register(form: ChartForm, request: FollowInkRequest, chartStartMs: number): RegistrationFit {

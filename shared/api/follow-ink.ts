@@ -17,11 +17,11 @@ export interface FollowedKnot {
 }
 
 /**
- * A flagged span of the followed line, by knot index. Gap: the last knot before and the first after
- * (−1 / knot count when it runs off an end). Off-scale: the first and last knot inside.
+ * A named span of the followed line, by knot index. Gap and time mark: the last knot before and the first after
+ * (−1 / knot count when it runs off an end). Off-scale and jump: the first and last knot inside.
  */
 export interface FollowedSpan {
-  kind: 'gap' | 'off_scale';
+  kind: 'gap' | 'off_scale' | 'jump' | 'time_mark';
   fromIndex: number;
   toIndex: number;
 }
@@ -33,6 +33,13 @@ export interface FollowInkResult {
   lineWidthPx: number;
   /** Time the server took to follow the line, ms. */
   elapsedMs: number;
+  /** How ink was told from grid and paper ('colour', 'lab' or 'grey') and why. */
+  inkModel: string;
+  inkModelReason: string;
+  /** Share (0–1) of the chart span where the line was found. */
+  coverage: number;
+  /** Why the line should not be trusted (none found, or only a small share of the span); null when fine. */
+  problem: string | null;
 }
 
 /** Checks a Follow ink request from the wire; pins are checked as for an ink-line draft, with the same field paths. */

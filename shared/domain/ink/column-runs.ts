@@ -1,5 +1,6 @@
 import type { ChartWindow } from './chart-window';
 import type { InkContrast } from './ink-contrast';
+import { readLut } from './lab-contrast';
 import type { RawImage } from './raw-image';
 
 /**
@@ -100,7 +101,7 @@ export function findCoarseRuns(
   const { offset, threshold } = contrast;
   const isColour = channels >= 3;
   const wr = isColour ? contrast.wr : contrast.wr + contrast.wg + contrast.wb;
-  const { wg, wb } = contrast;
+  const { wg, wb, lut } = contrast;
   const runStart = new Int32Array(columns).fill(-1);
   const runMass = new Float64Array(columns);
   const runMoment = new Float64Array(columns);
@@ -113,7 +114,13 @@ export function findCoarseRuns(
     let k = (y * width + xStart) * channels;
     for (let i = 0, x = xStart; i < columns; i++, k += pixelStep, x += columnStep) {
       const inside = y >= top[i] && y < bottom[i] && x >= 0 && x < width;
-      const s = !inside ? -1 : isColour ? offset - (wr * data[k] + wg * data[k + 1] + wb * data[k + 2]) : offset - wr * data[k];
+      const s = !inside
+        ? -1
+        : !isColour
+          ? offset - wr * data[k]
+          : lut
+            ? readLut(lut, data[k], data[k + 1], data[k + 2])
+            : offset - (wr * data[k] + wg * data[k + 1] + wb * data[k + 2]);
       if (s >= threshold) {
         if (runStart[i] < 0) {
           runStart[i] = y;
@@ -157,7 +164,7 @@ export function findBandRuns(
   const { offset, threshold } = contrast;
   const isColour = channels >= 3;
   const wr = isColour ? contrast.wr : contrast.wr + contrast.wg + contrast.wb;
-  const { wg, wb } = contrast;
+  const { wg, wb, lut } = contrast;
   let horizontal = new Float32Array(0);
   for (let i = 0; i < columns; i++) {
     const y0 = bandTop[i];
@@ -173,7 +180,12 @@ export function findBandRuns(
       const left = x > 0 ? -channels : 0;
       const right = x < width - 1 ? channels : 0;
       const k = (y * width + x) * channels;
-      if (isColour) {
+      if (isColour && lut) {
+        const a = k + left;
+        const c = k + right;
+        horizontal[r] =
+          0.25 * (readLut(lut, data[a], data[a + 1], data[a + 2]) + 2 * readLut(lut, data[k], data[k + 1], data[k + 2]) + readLut(lut, data[c], data[c + 1], data[c + 2]));
+      } else if (isColour) {
         const a = k + left;
         const c = k + right;
         const sum =

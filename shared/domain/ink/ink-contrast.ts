@@ -1,4 +1,5 @@
 import type { ChartWindow } from './chart-window';
+import { createLabLut, type LabLut, readLut, rescaleLut } from './lab-contrast';
 import { quantile } from './quantile';
 import { type InkColour, isColourImage, type RawImage } from './raw-image';
 
@@ -8,8 +9,16 @@ import { type InkColour, isColourImage, type RawImage } from './raw-image';
  * Colour scans: the ink direction with the grid's colour direction projected out, so grid lines and
  * brownish stains score near 0 however dark they are. Grey scans: darkness beyond the grid's darkness.
  */
+export type InkModel = 'colour' | 'lab' | 'grey';
+
 export interface InkContrast {
-  mode: 'colour' | 'grey';
+  /**
+   * colour: the grid's colour direction projected out (ink far from the grid in hue); lab: nearer ink than grid and
+   * paper in CIELAB (ink close in colour to the grid); grey: darker than the grid (grey scans, or no usable colour).
+   */
+  mode: InkModel;
+  /** Why this model was taken, in words for the trace. */
+  reason: string;
   offset: number;
   wr: number;
   wg: number;
@@ -19,6 +28,8 @@ export interface InkContrast {
   paper: InkColour;
   /** Standard deviation of the score on bare paper (noise). */
   noiseScore: number;
+  /** The lab model's score per colour, used instead of the linear weights (absent for the linear models). */
+  lut?: LabLut;
 }
 
 export interface InkContrastOptions {
@@ -29,8 +40,17 @@ export interface InkContrastOptions {
 }
 
 const MAX_SAMPLES = 20_000;
-// Colour ink needs at least this share of its contrast left after removing the grid direction.
-const MIN_ORTHOGONAL_SHARE = 0.3;
+// Ink with at least this share of its contrast left after removing the grid direction is scored linearly (colour);
+// closer to the grid's colour it is scored in CIELAB (lab).
+const LINEAR_ORTHOGONAL_SHARE = 0.5;
+// Between the two shares the CIELAB model is taken when it lets through less than this share of what the linear one does.
+const LAB_LEAKAGE_SHARE = 1 / 3;
+// Below this share the linear model is not tried at all (it would amplify noise more than it removes the grid).
+const MIN_LINEAR_SHARE = 0.3;
+// Ink and full grid closer than this (ΔE-like, RGB units) cannot be told apart by colour: darker than the grid.
+const MIN_INK_GRID_DISTANCE = 12;
+// Grey levels of channel spread below which a colour scan is taken as grey.
+const MIN_HUE_LEVELS = 6;
 const MIN_THRESHOLD = 0.14;
 
 interface Samples {
@@ -134,7 +154,89 @@ export function estimateInkContrast(image: RawImage, window: ChartWindow, option
     const colour = colourContrast(samples, dr, dg, db, n, darkLimit, paper, given);
     if (colour !== null) return colour;
   }
-  return greyContrast(samples, dr, dg, db, n, darkLimit, paper, given);
+  return greyContrast(samples, dr, dg, db, n, darkLimit, paper, given, !isColourImage(image));
+}
+
+/** Mean shift from paper of the samples picked. */
+function meanShift(dr: Float32Array, dg: Float32Array, db: Float32Array, n: number, pick: (i: number) => boolean): [number, number, number] {
+  const sum: [number, number, number] = [0, 0, 0];
+  let count = 0;
+  for (let i = 0; i < n; i++) {
+    if (!pick(i)) continue;
+    sum[0] += dr[i];
+    sum[1] += dg[i];
+    sum[2] += db[i];
+    count++;
+  }
+  return count > 0 ? [sum[0] / count, sum[1] / count, sum[2] / count] : sum;
+}
+
+/** The printed grid's full colour: along its colour direction, as far as the strongest tenth of grid-like samples. */
+function fullGridColour(
+  dr: Float32Array,
+  dg: Float32Array,
+  db: Float32Array,
+  n: number,
+  darkLimit: number,
+  grid: [number, number, number],
+  paper: [number, number, number],
+): [number, number, number] {
+  const along = new Float32Array(n);
+  let count = 0;
+  for (let i = 0; i < n; i++) {
+    const length2 = dr[i] * dr[i] + dg[i] * dg[i] + db[i] * db[i];
+    if (length2 < darkLimit * darkLimit) continue;
+    const a = dr[i] * grid[0] + dg[i] * grid[1] + db[i] * grid[2];
+    if (length2 - a * a > 0.0625 * length2) continue;
+    along[count++] = a;
+  }
+  const depth = count > 0 ? quantile(along, 0.9, count) : darkLimit;
+  return [paper[0] - depth * grid[0], paper[1] - depth * grid[1], paper[2] - depth * grid[2]];
+}
+
+/** The CIELAB model (see lab-contrast.ts): scores normalised so the pen line's core scores about 1. */
+function labContrast(
+  samples: Samples,
+  dr: Float32Array,
+  dg: Float32Array,
+  db: Float32Array,
+  n: number,
+  darkLimit: number,
+  paper: [number, number, number],
+  grid: [number, number, number],
+  ink: [number, number, number],
+  isGiven: boolean,
+  share: number,
+  source: string,
+): InkContrast {
+  const lut = createLabLut({ paper, grid, ink });
+  const scores = new Float32Array(n);
+  const paperScores = new Float32Array(n);
+  let paperCount = 0;
+  for (let i = 0; i < n; i++) {
+    scores[i] = readLut(lut, samples.r[i], samples.g[i], samples.b[i]);
+    if (dr[i] * dr[i] + dg[i] * dg[i] + db[i] * db[i] < darkLimit * darkLimit) paperScores[paperCount++] = scores[i];
+  }
+  const full = fullInkScore(scores, isGiven ? 1 : 0);
+  rescaleLut(lut, 1 / full);
+  // The score is clamped at 0, so the spread on bare paper is read from its upper side: the 84th percentile is
+  // about one standard deviation above the middle for normal noise (common practice).
+  const noiseScore = paperCount > 0 ? Math.max(0, quantile(paperScores, 0.84, paperCount) - quantile(paperScores, 0.5, paperCount)) / full : 0;
+  const hex = (c: readonly number[]) => `#${c.map((v) => Math.round(Math.min(255, Math.max(0, v))).toString(16).padStart(2, '0')).join('')}`;
+  return {
+    mode: 'lab',
+    reason:
+      `colour scan; ${source} (${hex(ink)}) keeps only ${Math.round(100 * share)} % of its contrast across the grid's colour (${hex(grid)}), ` +
+      'so each pixel is scored in CIELAB by how much nearer it is to the ink than to the grid and the paper',
+    offset: 0,
+    wr: 0,
+    wg: 0,
+    wb: 0,
+    threshold: Math.min(0.4, Math.max(MIN_THRESHOLD, 5 * noiseScore)),
+    paper: { r: paper[0], g: paper[1], b: paper[2] },
+    noiseScore,
+    lut,
+  };
 }
 
 function estimatePaperNoise(dr: Float32Array, dg: Float32Array, db: Float32Array, n: number): number {
@@ -189,20 +291,80 @@ function colourContrast(
       residuals[i] = Math.sqrt(Math.max(0, r * r + g * g + b * b - along * along));
     }
     const limit = Math.max(darkLimit, quantile(residuals, 0.997));
-    const sum: [number, number, number] = [0, 0, 0];
-    for (let i = 0; i < n; i++) {
-      if (residuals[i] < limit) continue;
-      sum[0] += dr[i];
-      sum[1] += dg[i];
-      sum[2] += db[i];
-    }
-    ink = sum;
+    ink = meanShift(dr, dg, db, n, (i) => residuals[i] >= limit);
   }
   const along = dot(ink, grid);
   const orthogonal: [number, number, number] = [ink[0] - along * grid[0], ink[1] - along * grid[1], ink[2] - along * grid[2]];
   const inkLength = Math.hypot(ink[0], ink[1], ink[2]);
   const orthogonalLength = Math.hypot(orthogonal[0], orthogonal[1], orthogonal[2]);
-  if (inkLength === 0 || orthogonalLength < MIN_ORTHOGONAL_SHARE * inkLength) return null;
+  const share = inkLength > 0 ? orthogonalLength / inkLength : 0;
+  const source = given ? 'the given ink colour' : 'the ink colour found on the scan';
+  const closeInHue = share < LINEAR_ORTHOGONAL_SHARE;
+  const linear = closeInHue && share < MIN_LINEAR_SHARE ? null : linearColourContrast(samples, dr, dg, db, n, darkLimit, paper, ink, orthogonal, given, share, source);
+  if (!closeInHue) return linear;
+  // Close in hue to the grid. Without a given colour the least grid-like samples may be stains or noise; the
+  // darkest few are more likely the pen's core.
+  let labInk = ink;
+  if (!given) {
+    const darkness = new Float32Array(n);
+    for (let i = 0; i < n; i++) darkness[i] = dr[i] + dg[i] + db[i];
+    const limit = quantile(darkness, 0.997);
+    labInk = meanShift(dr, dg, db, n, (i) => darkness[i] >= limit);
+  }
+  const gridColour = fullGridColour(dr, dg, db, n, darkLimit, grid, paper);
+  const inkColour: [number, number, number] = [paper[0] - labInk[0], paper[1] - labInk[1], paper[2] - labInk[2]];
+  const distance = Math.hypot(inkColour[0] - gridColour[0], inkColour[1] - gridColour[1], inkColour[2] - gridColour[2]);
+  // A grey scan stored as RGB has no hue to tell ink from grid: darker than the grid is all there is.
+  const hueOf = (c: readonly number[]) => Math.max(c[0], c[1], c[2]) - Math.min(c[0], c[1], c[2]);
+  const paperHue = hueOf(paper);
+  if (distance < MIN_INK_GRID_DISTANCE || Math.max(Math.abs(hueOf(inkColour) - paperHue), Math.abs(hueOf(gridColour) - paperHue)) < MIN_HUE_LEVELS) return linear;
+  const lab = labContrast(samples, dr, dg, db, n, darkLimit, paper, gridColour, inkColour, given !== undefined, share, source);
+  if (linear === null) return lab;
+  // Both could work. The linear model is the proven one; the CIELAB model takes over when it lets clearly fewer of
+  // the printed grid's and the stains' pixels through as ink.
+  const linearLeak = leakage(samples, dr, dg, db, n, darkLimit, linear);
+  const labLeak = leakage(samples, dr, dg, db, n, darkLimit, lab);
+  const chosen = labLeak < LAB_LEAKAGE_SHARE * linearLeak ? lab : linear;
+  return {
+    ...chosen,
+    reason: `${chosen.reason}; of the non-paper samples the CIELAB model lets ${(100 * labLeak).toFixed(1)} % through as ink, the linear one ${(100 * linearLeak).toFixed(1)} %`,
+  };
+}
+
+/**
+ * Share of the dark (non-paper) samples that score as ink. The pen line is a small part of them; the printed grid,
+ * labels and stains are most of it, so a model that lets fewer through tells ink from grid better.
+ */
+function leakage(samples: Samples, dr: Float32Array, dg: Float32Array, db: Float32Array, n: number, darkLimit: number, contrast: InkContrast): number {
+  let dark = 0;
+  let inked = 0;
+  for (let i = 0; i < n; i++) {
+    if (dr[i] * dr[i] + dg[i] * dg[i] + db[i] * db[i] < darkLimit * darkLimit) continue;
+    dark++;
+    const r = samples.r[i];
+    const g = samples.g[i];
+    const b = samples.b[i];
+    const score = contrast.lut ? readLut(contrast.lut, r, g, b) : contrast.offset - (contrast.wr * r + contrast.wg * g + contrast.wb * b);
+    if (score >= contrast.threshold) inked++;
+  }
+  return dark > 0 ? inked / dark : 0;
+}
+
+/** The linear model: the ink's shift from paper with the grid's colour direction projected out. */
+function linearColourContrast(
+  samples: Samples,
+  dr: Float32Array,
+  dg: Float32Array,
+  db: Float32Array,
+  n: number,
+  darkLimit: number,
+  paper: [number, number, number],
+  ink: [number, number, number],
+  orthogonal: [number, number, number],
+  given: InkColour | undefined,
+  share: number,
+  source: string,
+): InkContrast {
   const direction = normalise(orthogonal);
 
   const scores = new Float32Array(n);
@@ -221,6 +383,7 @@ function colourContrast(
   const noiseScore = quantile(steps, 0.5, stepCount) / (0.6745 * Math.SQRT2) / full;
   return {
     mode: 'colour',
+    reason: `colour scan; ${source} keeps ${Math.round(100 * share)} % of its contrast across the grid's colour, so the grid's colour is projected out`,
     offset: dot(paper, direction) / full,
     wr: direction[0] / full,
     wg: direction[1] / full,
@@ -246,6 +409,7 @@ function greyContrast(
   darkLimit: number,
   paper: [number, number, number],
   given: InkColour | undefined,
+  isGreyImage: boolean,
 ): InkContrast {
   // Luma weights (ITU-R BT.601, common practice) so that colour scans falling back here behave like grey ones.
   const lr = 0.299;
@@ -271,6 +435,9 @@ function greyContrast(
   const paperLuma = lr * paper[0] + lg * paper[1] + lb * paper[2];
   return {
     mode: 'grey',
+    reason: isGreyImage
+      ? 'grey-scale scan: ink is told from the grid by being darker than it'
+      : "colour scan, but the ink cannot be told from the grid by colour: ink is told from the grid by being darker than it",
     offset: (paperLuma - gridDarkness) / span,
     wr: lr / span,
     wg: lg / span,

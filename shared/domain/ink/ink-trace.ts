@@ -1,12 +1,21 @@
-/** A span of the pen line that needs a flag: no ink (gap), or the pen riding the edge of the printed range. */
+import type { InkModel } from './ink-contrast';
+
+/**
+ * A span of the pen line worth naming: no ink (gap), the pen riding the edge of the printed range (off_scale), a
+ * steep stroke the pen drew through from one level to another (jump), or a stroke up and back down to the line's
+ * level on one arc that the line steps over (time_mark). Only gaps break the line.
+ */
+export type InkSpanKind = 'gap' | 'off_scale' | 'jump' | 'time_mark';
+
 export interface InkSpan {
-  kind: 'gap' | 'off_scale';
+  kind: InkSpanKind;
   /** Pixel columns the span covers (continuous coordinates). */
   startXPx: number;
   endXPx: number;
   /**
-   * Points bounding the span. Gap: the last point before it and the first after it (−1 / point count
-   * when the span starts before the first point or ends after the last). Off-scale: first and last point inside.
+   * Points bounding the span. Gap and time mark: the last point before it and the first after it (−1 / point
+   * count when the span starts before the first point or ends after the last). Off-scale and jump: first and last
+   * point inside.
    */
   startIndex: number;
   endIndex: number;
@@ -25,8 +34,16 @@ export interface InkTrace {
   timeMarks: { xPx: number; yPx: number }[];
   /** Width of the pen line down a column, px, as measured. */
   lineWidthPx: number;
-  /** How ink was told from paper: 'colour' (grid colour projected out) or 'grey' (darker than the grid). */
-  contrastMode: 'colour' | 'grey';
+  /**
+   * How ink was told from paper and grid: 'colour' (grid colour projected out), 'lab' (nearer ink than grid and
+   * paper in CIELAB) or 'grey' (darker than the grid); and why that model.
+   */
+  contrastMode: InkModel;
+  contrastReason: string;
+  /** Share (0–1) of the asked span of time the line was found over (outside gap spans). */
+  coverage: number;
+  /** Why the result should not be trusted as a line (none found, or only a small share of the span); null when fine. */
+  problem: string | null;
 }
 
 /** True when points i and i + 1 are separated by a gap span. */

@@ -1,6 +1,7 @@
 import type { ChartWindow } from './chart-window';
 import { findCoarseRuns, measureLineWidth } from './column-runs';
 import type { InkContrast } from './ink-contrast';
+import { adaptRunsToLocalStrength } from './local-strength';
 import { type PathCosts, type PathSeed, searchInkPath } from './path-search';
 import type { RawImage } from './raw-image';
 
@@ -16,12 +17,14 @@ export function findBand(
   widthPx: number,
   costs: PathCosts,
   seed: PathSeed | undefined,
+  localReachPx: number,
 ): { top: Int32Array; bottom: Int32Array } {
   const columnStep = Math.max(1, Math.round(1.2 * widthPx));
   const rowStep = Math.max(1, Math.round(widthPx / 2.5));
   const columns = window.rowTop.length;
   if (columnStep < 2) return { top: window.rowTop, bottom: window.rowBottom };
   const coarse = findCoarseRuns(image, window, contrast, columnStep, rowStep, widthPx);
+  if (contrast.mode === 'lab') adaptRunsToLocalStrength(coarse, localReachPx / columnStep, contrast.threshold);
   const coarseWidthPx = Math.max(widthPx, measureLineWidth(coarse, widthPx).runLengthPx);
   const coarseSeed = seed && { column: Math.floor(seed.column / columnStep), yPx: seed.yPx, radiusPx: seed.radiusPx + rowStep };
   const chosen = searchInkPath(coarse, coarseWidthPx, costs, coarseSeed, rowStep);

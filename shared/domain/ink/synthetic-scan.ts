@@ -51,8 +51,8 @@ export function syntheticFit(): RegistrationFit {
   );
 }
 
-/** A blank sheet of paper with the printed grid (pressure lines every unit, hour lines). */
-export function blankScan(channels: 1 | 3 = 3): RawImage {
+/** A blank sheet of paper with the printed grid (pressure lines every unit, hour lines), in the grid colour given. */
+export function blankScan(channels: 1 | 3 = 3, grid: readonly number[] = GRID): RawImage {
   const width = 2 * MARGIN_PX + 24 * 10 * PX_PER_MM;
   const height = 2 * MARGIN_PX + 40 * 2 * PX_PER_MM;
   const image: RawImage = { data: new Uint8Array(width * height * channels), width, height, channels };
@@ -60,11 +60,11 @@ export function blankScan(channels: 1 | 3 = 3): RawImage {
   for (let p = 980; p <= 1020; p++) {
     const y = pixelOf(0, p).yPx;
     const heavy = p % 10 === 0;
-    for (let x = MARGIN_PX; x < width - MARGIN_PX; x++) paint(image, x, Math.floor(y), GRID, heavy ? 1 : 0.7);
+    for (let x = MARGIN_PX; x < width - MARGIN_PX; x++) paint(image, x, Math.floor(y), grid, heavy ? 1 : 0.7);
   }
   for (let h = 0; h <= 24; h++) {
     const x = Math.floor(pixelOf(h, 1000).xPx);
-    for (let y = MARGIN_PX; y < height - MARGIN_PX; y++) paint(image, x, y, GRID, 0.7);
+    for (let y = MARGIN_PX; y < height - MARGIN_PX; y++) paint(image, x, y, grid, 0.7);
   }
   return image;
 }

@@ -5,6 +5,8 @@
 import { type ChartWindow, columnX } from './chart-window';
 import type { ColumnRuns, LineWidth } from './column-runs';
 import { runReward } from './path-search';
+import type { PixelScore } from './pixel-score';
+import { centreSteepStroke } from './steep-stroke';
 
 /** Points of the followed line under construction, in time-column order. */
 export interface PointList {
@@ -13,7 +15,25 @@ export interface PointList {
   confidence: number[];
   /** Time column of each point. */
   column: number[];
+  /** 0 for an ordinary point; k > 0 for the points of the k-th steep stroke (a jump) followed across its width. */
+  stroke: number[];
 }
+
+/** A foot of a time mark found while stepping over it, with its time column. */
+export interface TickFoot {
+  x: number;
+  y: number;
+  column: number;
+}
+
+/** What the steep-stroke rule needs beyond the runs: the pixels' scores and the run threshold. */
+export interface StrokeScoring {
+  score: PixelScore;
+  threshold: number;
+}
+
+// A run this much longer than the flat line's runs stands steeper than 45° (length ≈ width · √(1 + slope²)).
+const STEEP_RUN_FACTOR = Math.SQRT2;
 
 /**
  * Turns the chosen runs into points. A run gives its centre, unless it is much longer than the line's slope
@@ -28,7 +48,8 @@ export function collectPoints(
   line: LineWidth,
   points: PointList,
   gapColumns: { first: number; last: number }[],
-  ticks: { x: number; y: number }[],
+  ticks: TickFoot[],
+  scoring: StrokeScoring,
 ): void {
   const { slots } = runs;
   const widthPx = line.runLengthPx;
@@ -37,6 +58,21 @@ export function collectPoints(
   const long = markLongRuns(runs, chosen, widthPx);
   let gapStart = -1;
   let lastY = NaN;
+  let strokeCount = 0;
+  // Columns up to here belong to an earlier stretch and may not be taken back by a steep stroke.
+  let settled = -1;
+  const isSteep = (c: number): boolean => {
+    if (c < 0 || c >= runs.columns || chosen[c] < 0) return false;
+    const q = c * slots + chosen[c];
+    return runs.bottom[q] - runs.top[q] > STEEP_RUN_FACTOR * widthPx;
+  };
+  const push = (x: number, y: number, confidence: number, column: number, stroke = 0): void => {
+    points.x.push(x);
+    points.y.push(y);
+    points.confidence.push(confidence);
+    points.column.push(column);
+    points.stroke.push(stroke);
+  };
   for (let i = 0; i < runs.columns; i++) {
     const k = chosen[i];
     if (k < 0) {
@@ -49,10 +85,7 @@ export function collectPoints(
     }
     const j = i * slots + k;
     if (long[i] === 0) {
-      points.x.push(columnX(window, i, runs.centre[j]));
-      points.y.push(runs.centre[j]);
-      points.confidence.push(confidenceOf(runs, i, k, widthPx));
-      points.column.push(i);
+      push(columnX(window, i, runs.centre[j]), runs.centre[j], confidenceOf(runs, i, k, widthPx), i);
       lastY = runs.centre[j];
       continue;
     }
@@ -85,37 +118,65 @@ export function collectPoints(
       for (let c = first; c <= last; c++) {
         const q = c * slots + chosen[c];
         const y = isUpper ? runs.top[q] + half : runs.bottom[q] - half;
-        points.x.push(columnX(window, c, y));
-        points.y.push(y);
-        points.confidence.push(0.5 * confidenceOf(runs, c, chosen[c], widthPx));
-        points.column.push(c);
+        push(columnX(window, c, y), y, 0.5 * confidenceOf(runs, c, chosen[c], widthPx), c);
       }
-      if (last - first + 1 <= 2 * line.widthPx + 3) ticks.push({ x: columnX(window, middle, entryY), y: entryY });
+      if (last - first + 1 <= 2 * line.widthPx + 3) ticks.push({ x: columnX(window, middle, entryY), y: entryY, column: middle });
       lastY = entryY;
+      settled = last;
       continue;
     }
-    // The stroke's centre across its width: the mass-weighted mean column of the stretch (sub-column).
-    let massSum = 0;
-    let moment = 0;
-    for (let c = first; c <= last; c++) {
-      const mass = runs.mass[c * slots + chosen[c]];
-      massSum += mass;
-      moment += mass * c;
+    // In at one end, out at the other: the pen went through — a jump. Take in the steep columns on either side (the
+    // stroke's flanks), then follow it across its width from the level it left the line to the level it rejoins it.
+    let strokeFirst = first;
+    while (strokeFirst - 1 > settled && isSteep(strokeFirst - 1)) strokeFirst--;
+    let strokeLast = last;
+    while (strokeLast + 1 < runs.columns && isSteep(strokeLast + 1)) strokeLast++;
+    while (points.column.length > 0 && points.column[points.column.length - 1] >= strokeFirst) {
+      points.x.pop();
+      points.y.pop();
+      points.confidence.pop();
+      points.column.pop();
+      points.stroke.pop();
     }
-    const centreColumn = massSum > 0 ? moment / massSum : middle;
-    const confidence = confidenceOf(runs, middle, chosen[middle], widthPx);
-    points.x.push(columnX(window, centreColumn, entryY), columnX(window, centreColumn, exitY));
-    points.y.push(entryY, exitY);
-    points.confidence.push(confidence, confidence);
-    points.column.push(middle, middle);
-    lastY = exitY;
+    const hasBefore = points.column.length > 0 && points.column[points.column.length - 1] >= strokeFirst - 2 * widthPx - 2;
+    const before = hasBefore ? points.y[points.y.length - 1] : NaN;
+    const fromColumn = hasBefore ? points.column[points.column.length - 1] : strokeFirst - 1;
+    const afterColumn = strokeLast + 1;
+    const after = afterColumn < runs.columns && chosen[afterColumn] >= 0 && long[afterColumn] === 0 ? runs.centre[afterColumn * slots + chosen[afterColumn]] : NaN;
+    const fromY = Number.isNaN(before) ? entryY : before;
+    const toY = Number.isNaN(after) ? exitY : after;
+    const reach = Math.ceil(widthPx);
+    const path = centreSteepStroke(scoring.score, window, scoring.threshold, {
+      fromColumn,
+      toColumn: strokeLast + 1,
+      fromY,
+      toY,
+      searchFirst: strokeFirst - reach,
+      searchLast: strokeLast + reach,
+    });
+    let confidence = 0;
+    for (let c = strokeFirst; c <= strokeLast; c++) confidence += confidenceOf(runs, c, chosen[c], widthPx);
+    confidence /= strokeLast - strokeFirst + 1;
+    strokeCount++;
+    if (path.y.length === 0) {
+      // No row crossed by ink (a pen skip in the stroke): keep its two ends at its middle column.
+      push(columnX(window, middle, entryY), entryY, confidence, middle, strokeCount);
+      push(columnX(window, middle, exitY), exitY, confidence, middle, strokeCount);
+    }
+    for (let n = 0; n < path.y.length; n++) {
+      const column = Math.min(strokeLast, Math.max(strokeFirst, Math.round(path.column[n])));
+      push(columnX(window, path.column[n], path.y[n]), path.y[n], confidence, column, strokeCount);
+    }
+    i = strokeLast;
+    settled = strokeLast;
+    lastY = path.y.length > 0 ? path.y[path.y.length - 1] : exitY;
   }
   if (gapStart >= 0) gapColumns.push({ first: gapStart, last: runs.columns - 1 });
   dropPointsBesideTicks(points, ticks, line.widthPx);
 }
 
 /** The columns just beside a time mark still hold some of its stroke, which pulls their centres off the line. */
-function dropPointsBesideTicks(points: PointList, ticks: { x: number; y: number }[], widthPx: number): void {
+function dropPointsBesideTicks(points: PointList, ticks: TickFoot[], widthPx: number): void {
   if (ticks.length === 0) return;
   const reach = widthPx / 2 + 1;
   let t = 0;
@@ -129,9 +190,11 @@ function dropPointsBesideTicks(points: PointList, ticks: { x: number; y: number 
     points.y[kept] = points.y[i];
     points.confidence[kept] = points.confidence[i];
     points.column[kept] = points.column[i];
+    points.stroke[kept] = points.stroke[i];
     kept++;
   }
   points.column.length = kept;
+  points.stroke.length = kept;
   points.x.length = kept;
   points.y.length = kept;
   points.confidence.length = kept;
@@ -163,12 +226,13 @@ function markLongRuns(runs: ColumnRuns, chosen: Int16Array, widthPx: number): Ui
 }
 
 /** Neighbouring tick columns belong to one stroke; its foot is their mean position. */
-export function groupTicks(ticks: { x: number; y: number }[], widthPx: number): { xPx: number; yPx: number }[] {
-  const marks: { xPx: number; yPx: number }[] = [];
-  let group: { x: number; y: number }[] = [];
+export function groupTicks(ticks: TickFoot[], widthPx: number): { xPx: number; yPx: number; column: number }[] {
+  const marks: { xPx: number; yPx: number; column: number }[] = [];
+  let group: TickFoot[] = [];
   const flush = () => {
     if (group.length === 0) return;
-    marks.push({ xPx: group.reduce((s, t) => s + t.x, 0) / group.length, yPx: group.reduce((s, t) => s + t.y, 0) / group.length });
+    const mean = (f: (t: TickFoot) => number) => group.reduce((s, t) => s + f(t), 0) / group.length;
+    marks.push({ xPx: mean((t) => t.x), yPx: mean((t) => t.y), column: mean((t) => t.column) });
     group = [];
   };
   for (const tick of ticks) {

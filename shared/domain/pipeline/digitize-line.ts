@@ -36,7 +36,8 @@ export interface PipelinePin {
 
 /** A flagged span of the line by point index (as InkSpan): gap bounds are the points either side. */
 export interface PipelineSpan {
-  kind: 'gap' | 'off_scale';
+  /** Gaps break the line and off-scale stretches are flagged; jumps and time marks are ink and read as such. */
+  kind: 'gap' | 'off_scale' | 'jump' | 'time_mark';
   startIndex: number;
   endIndex: number;
 }
@@ -189,6 +190,8 @@ function readLine(
   let trailingGap = false;
   for (const span of line.spans) {
     if (span.kind === 'off_scale') offScale.fill(1, Math.max(0, span.startIndex), Math.min(n, span.endIndex + 1));
+    // Jumps and time marks are kinds of ink, not breaks in it (the kinds of Follow ink's spans).
+    else if (span.kind !== 'gap') continue;
     else if (span.startIndex < 0) leadingGap = true;
     else if (span.endIndex >= n) trailingGap = true;
     else breakBefore[span.endIndex] = 1;

@@ -14,6 +14,10 @@ const FOLLOWED: FollowInkResult = {
   spans: [{ kind: 'gap', fromIndex: 1, toIndex: 2 }],
   lineWidthPx: 4,
   elapsedMs: 120,
+  inkModel: 'colour',
+  inkModelReason: 'colour scan',
+  coverage: 1,
+  problem: null,
 };
 
 describe('BenchState', () => {

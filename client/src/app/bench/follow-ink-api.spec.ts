@@ -19,7 +19,7 @@ describe('FollowInkApi', () => {
 
   it('when the ink is followed, then the pins go by POST to the scan and the answer comes back as sent', () => {
     const pins = [{ xPx: 10, yPx: 20, time: '2026-03-02T06:00:00.000Z', pressure: 1000 }];
-    const answer: FollowInkResult = { knots: [{ xPx: 1, yPx: 2, confidence: 0.9 }], spans: [], lineWidthPx: 3.2, elapsedMs: 40 };
+    const answer: FollowInkResult = { knots: [{ xPx: 1, yPx: 2, confidence: 0.9 }], spans: [], lineWidthPx: 3.2, elapsedMs: 40, inkModel: 'colour', inkModelReason: 'test', coverage: 1, problem: null };
     let received: FollowInkResult | null = null;
 
     api.follow('scan/1', { pins, inkColour: '#223388' }).subscribe((result) => (received = result));

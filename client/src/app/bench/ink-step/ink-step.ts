@@ -86,6 +86,9 @@ export class InkStep {
       .subscribe({
         next: (result) => {
           this.isFollowing.set(false);
+          // Follow ink found no line, or only a small share of the span: say why instead of silently showing it.
+          this.problem.set(result.problem ?? null);
+          if (result.knots.length === 0) return;
           this.state.replaceWithFollowed(result);
           this.followed.set({
             elapsedMs: result.elapsedMs,
