@@ -22,6 +22,8 @@ import * as renameScanChartStart from './2026_12_03_0600_rename_scan_chart_start
 import * as createSeriesChange from './2026_12_03_0610_create_series_change';
 import * as createLesson from './2026_12_03_1200_create_lesson';
 import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
+import * as createStationSeries from './2026_12_04_1100_create_station_series';
+import * as recordExistingSeriesLines from './2026_12_04_1110_record_existing_series_lines';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -52,4 +54,6 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_03_0610_create_series_change': createSeriesChange,
   '2026_12_03_1200_create_lesson': createLesson,
   '2026_12_03_1210_create_lesson_share': createLessonShare,
+  '2026_12_04_1100_create_station_series': createStationSeries,
+  '2026_12_04_1110_record_existing_series_lines': recordExistingSeriesLines,
 };

@@ -11,6 +11,7 @@ import type { PersonRoleTable, PersonTable } from '../people/person.table';
 import type { ScanTable } from '../scans/scan.table';
 import type { SeriesChangeTable } from '../series/series-change.table';
 import type { SeriesPointTable } from '../series/series-point.table';
+import type { StationSeriesAggregateTable, StationSeriesPointTable, StationSeriesStateTable } from '../series/station-series.table';
 import type { StationTable } from '../stations/station.table';
 
 /** Every table, keyed by its SQL name; each feature owns its `*.table.ts`. */
@@ -31,6 +32,10 @@ export interface Database {
   series_change: SeriesChangeTable;
   lesson: LessonTable;
   lesson_share: LessonShareTable;
+  station_series_point: StationSeriesPointTable;
+  station_series_hourly: StationSeriesAggregateTable;
+  station_series_daily: StationSeriesAggregateTable;
+  station_series_state: StationSeriesStateTable;
 }
 
 export type Db = Kysely<Database>;

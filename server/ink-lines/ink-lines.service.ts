@@ -5,6 +5,7 @@ import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
 import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
 import * as scansRepository from '../scans/scans.repository';
+import { recordSeriesChanges } from '../series/series-change';
 import * as seriesRepository from '../series/series.repository';
 import * as inkLinesRepository from './ink-lines.repository';
 import { readSeriesPoints, registerDraft } from './ink-line-reading';
@@ -13,7 +14,8 @@ const TRACEABLE_STATUSES = ['ready_to_trace', 'traced'];
 
 /**
  * Hands in a trace: fits the pins, reads the knots into hourly series points and, in one transaction,
- * stores the pin set, the ink line (handed in, version 1) and its points and marks the scan traced.
+ * stores the pin set, the ink line (handed in, version 1) and its points, records its entry into the station
+ * series (series_change, which the series job builds from) and marks the scan traced.
  */
 export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft, authorId: string): Promise<InkLineSaved> {
   return db.transaction().execute(async (trx) => {
@@ -49,6 +51,8 @@ export async function handInInkLine(db: Db, scanId: string, draft: InkLineDraft,
       knots: draft.knots,
     });
     await seriesRepository.insertSeriesPoints(trx, inkLine.id, scan.stationId, points);
+    // Whether a handed-in line counts is the series predicate's call (series.repository.ts); the build reads this record.
+    await recordSeriesChanges(trx, [{ stationId: scan.stationId, inkLineId: inkLine.id, change: 'added', personId: authorId, reason: 'handed in' }]);
     if (scan.status !== 'traced') {
       await scansRepository.updateScanStatus(trx, scanId, 'traced');
       await auditRepository.insertScanAudit(trx, { scanId, personId: authorId, action: 'status', changes: { status: { before: scan.status, after: 'traced' } } });

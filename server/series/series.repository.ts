@@ -1,5 +1,6 @@
+import type { ExpressionBuilder } from 'kysely';
 import type { SeriesFlag } from '@shared/api/series';
-import type { DbOrTrx } from '../db/database';
+import type { Database, DbOrTrx } from '../db/database';
 
 export interface NewSeriesPoint {
   timeMs: number;
@@ -13,6 +14,14 @@ const INSERT_BATCH_ROWS = 2000;
 const READ_BATCH_ROWS = 5000;
 // Only handed-in and approved lines belong to a station series; drafts and returned lines do not.
 const PUBLISHED_INK_LINE_STATUSES = ['handed_in', 'approved'] as const;
+
+/**
+ * The one rule for which ink lines count in a station series. Every reader of stored points (the series
+ * build, coverage) goes through it, so changing it here changes them all.
+ */
+export function inkLineCountsInSeries<DB extends Database, TB extends keyof DB & 'ink_line'>(eb: ExpressionBuilder<DB, TB>) {
+  return (eb as unknown as ExpressionBuilder<Database, 'ink_line'>)('ink_line.status', 'in', PUBLISHED_INK_LINE_STATUSES);
+}
 
 export async function insertSeriesPoints(db: DbOrTrx, inkLineId: string, stationId: string, points: NewSeriesPoint[]): Promise<void> {
   for (let start = 0; start < points.length; start += INSERT_BATCH_ROWS) {
@@ -49,7 +58,7 @@ function selectPublishedPoints(db: DbOrTrx, range: SeriesRange) {
     .where('series_point.time', '>=', new Date(range.fromMs))
     .where('series_point.time', '<=', new Date(range.toMs))
     .where('series_point.pressure_hpa', 'is not', null)
-    .where('ink_line.status', 'in', PUBLISHED_INK_LINE_STATUSES);
+    .where(inkLineCountsInSeries);
 }
 
 /** One stored point of one ink line, as read for merging. */

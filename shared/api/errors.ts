@@ -23,6 +23,13 @@ export type ApiErrorCode =
   | 'lesson_not_found'
   /** A share link that does not exist, has expired or was revoked (the three are not told apart). */
   | 'share_link_not_found'
+  /** A series range longer than the step allows; details give the limit and a coarser step. */
+  | 'series_range_too_large'
+  /** An API token (not a sign-in) on a route that tokens do not open, or on a write. */
+  | 'api_token_not_allowed'
+  /** A NetCDF file asked for a range with no points: there is nothing to write. */
+  | 'series_empty'
+  | 'api_token_not_found'
   | 'rate_limited'
   | 'version_conflict'
   | 'conflict'

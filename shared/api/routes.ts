@@ -25,6 +25,13 @@ export const API = {
   scanFollowInk: (scanId: string) => `/api/scans/${enc(scanId)}/follow-ink`,
   series: '/api/series',
   seriesCsv: '/api/series.csv',
+  /** Steps, aggregates, flags, several stations, JSON / CSV / CF NetCDF. */
+  seriesQuery: '/api/series/query',
+  stationCoverage: (stationId: string) => `/api/stations/${enc(stationId)}/coverage`,
+  apiTokens: '/api/tokens',
+  apiToken: (tokenId: string) => `/api/tokens/${enc(tokenId)}`,
+  openApi: '/api/openapi.json',
+  apiReference: '/api/reference',
   people: '/api/people',
   lessons: '/api/lessons',
   lesson: (lessonId: string) => `/api/lessons/${enc(lessonId)}`,

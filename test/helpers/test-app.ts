@@ -102,6 +102,11 @@ const APP_TABLES: (keyof Database)[] = [
   'person_role',
   'person',
   'demo_seed',
+  'series_change',
+  'station_series_point',
+  'station_series_hourly',
+  'station_series_daily',
+  'station_series_state',
 ];
 
 /** Empties the given tables (default: every app table); CASCADE takes rows that point at them. */
