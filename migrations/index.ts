@@ -24,6 +24,7 @@ import * as createLesson from './2026_12_03_1200_create_lesson';
 import * as createLessonShare from './2026_12_03_1210_create_lesson_share';
 import * as createStationSeries from './2026_12_04_1100_create_station_series';
 import * as recordExistingSeriesLines from './2026_12_04_1110_record_existing_series_lines';
+import * as createApiToken from './2026_12_04_1120_create_api_token';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -56,4 +57,5 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_03_1210_create_lesson_share': createLessonShare,
   '2026_12_04_1100_create_station_series': createStationSeries,
   '2026_12_04_1110_record_existing_series_lines': recordExistingSeriesLines,
+  '2026_12_04_1120_create_api_token': createApiToken,
 };

@@ -1,7 +1,9 @@
 import express, { type Express } from 'express';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps';
+import { apiTokensRoutes } from './api-tokens/api-tokens.routes';
 import { authRoutes } from './auth/auth.routes';
+import { createAuthenticateRead } from './auth/authenticate-read';
 import { createAuthenticate } from './auth/authenticate';
 import { chartFormsRoutes } from './chart-forms/chart-forms.routes';
 import { errorHandler } from './errors/error-handler';
@@ -34,12 +36,15 @@ export function createApp(deps: AppDeps): Express {
   app.use(securityHeaders());
 
   const authenticate = createAuthenticate(deps.config.jwtSecret);
+  // The series, coverage and station reads also take API tokens (authenticate-read.ts).
+  const authenticateRead = createAuthenticateRead(deps.db, authenticate);
   app.use('/api/health', healthRoutes());
   // Before the app-wide JSON parser, which would refuse a long ink line.
   app.use('/api/scans', inkLinesRoutes(deps, authenticate));
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
   app.use('/api/auth', authRoutes(deps, authenticate));
-  app.use('/api/stations', authenticate, stationsRoutes(deps));
+  app.use('/api/stations', authenticateRead, stationsRoutes(deps));
+  app.use('/api/tokens', authenticate, apiTokensRoutes(deps));
   app.use('/api/instruments', authenticate, instrumentsRoutes(deps));
   app.use('/api/chart-forms', authenticate, chartFormsRoutes(deps));
   app.use('/api/intake', authenticate, intakeRoutes(deps));
@@ -48,7 +53,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/people', authenticate, peopleRoutes(deps));
   app.use('/api/lessons', authenticate, lessonsRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
-  app.use('/api', seriesRoutes(deps, authenticate));
+  app.use('/api', seriesRoutes(deps, authenticateRead));
   app.use('/api', apiNotFound);
   app.use('/iiif', iiifRoutes(deps, authenticate));
   app.use('/iiif', apiNotFound);

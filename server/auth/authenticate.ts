@@ -3,6 +3,7 @@ import { Passport } from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import { isRole, type Role } from '@shared/api/roles';
 import { AppError, HTTP } from '../errors/app-error';
+import { bearerApiToken } from './authenticate-read';
 import type { SignedInPerson } from './signed-in-person';
 import { TOKEN_ALGORITHM } from './tokens';
 
@@ -21,6 +22,10 @@ export function createAuthenticate(jwtSecret: string): RequestHandler {
     ),
   );
   return (req, res, next) => {
+    // An API token is not a sign-in: say so instead of "Please sign in" (authenticate-read.ts takes it where it works).
+    if (bearerApiToken(req.headers.authorization) !== null) {
+      return next(new AppError(HTTP.forbidden, 'api_token_not_allowed', 'API tokens open only the series, coverage and station routes, to read.'));
+    }
     // A custom callback so that an expired token can be told apart from a missing or forged one.
     passport.authenticate('jwt', { session: false }, (error: unknown, user: SignedInPerson | false, info: unknown) => {
       if (error) return next(error);

@@ -1,4 +1,5 @@
 import type { Kysely, Transaction } from 'kysely';
+import type { ApiTokenTable } from '../api-tokens/api-token.table';
 import type { ScanAuditTable } from '../audit/scan-audit.table';
 import type { ChartFormTable } from '../chart-forms/chart-form.table';
 import type { DemoSeedTable } from '../demo/demo-seed.table';
@@ -36,6 +37,7 @@ export interface Database {
   station_series_hourly: StationSeriesAggregateTable;
   station_series_daily: StationSeriesAggregateTable;
   station_series_state: StationSeriesStateTable;
+  api_token: ApiTokenTable;
 }
 
 export type Db = Kysely<Database>;

@@ -55,7 +55,7 @@ export function seriesRoutes({ db }: AppDeps, authenticateRead: RequestHandler):
     const query = parseSeriesQuery(req.query);
     const accessedAt = new Date().toISOString();
     if (query.format === 'json') {
-      res.json(await seriesService.querySeries(db, query));
+      res.type('application/json').send(await seriesService.querySeriesJson(db, query));
       return;
     }
     const stations = await seriesService.getQueryStations(db, query.stationIds);

@@ -74,7 +74,36 @@ export async function queryStationSeries(db: Db, station: StationSummary, query:
   return { stationId: station.id, stationCode: station.code, stationName: station.name, version, builtAt, points };
 }
 
-/** GET /api/series/query as JSON: every station's series at the step (the range was checked against the row limit). */
+/**
+ * GET /api/series/query as JSON text (the shape of SeriesQueryResponse). The points come as JSON built by
+ * PostgreSQL (series-read.repository.ts), spliced into the envelope; provenance takes the row path.
+ */
+export async function querySeriesJson(db: Db, query: SeriesQuery): Promise<string> {
+  if (query.withProvenance) return JSON.stringify(await querySeries(db, query));
+  const stations = await getQueryStations(db, query.stationIds);
+  const parts: string[] = [];
+  for (const station of stations) parts.push(await queryStationSeriesJson(db, station, query));
+  const envelope = JSON.stringify({
+    from: new Date(query.fromMs).toISOString(),
+    to: new Date(query.toMs).toISOString(),
+    step: query.step,
+    aggregate: query.step === 'raw' ? null : query.aggregate,
+    flags: query.flags ?? [...SERIES_FLAGS],
+  });
+  return `${envelope.slice(0, -1)},"stations":[${parts.join(',')}]}`;
+}
+
+/** One station's part of querySeriesJson. */
+export async function queryStationSeriesJson(db: Db, station: StationSummary, query: SeriesQuery): Promise<string> {
+  const { version, builtAt } = await currentSeriesVersion(db, station.id);
+  const read = { stationId: station.id, fromMs: query.fromMs, toMs: query.toMs, flags: query.flags };
+  const points =
+    query.step === 'raw' ? await seriesReadRepository.readRawPointsJson(db, read) : await seriesReadRepository.readBucketsJson(db, read, query.step, query.aggregate);
+  const head = JSON.stringify({ stationId: station.id, stationCode: station.code, stationName: station.name, version, builtAt });
+  return `${head.slice(0, -1)},"points":${points}}`;
+}
+
+/** GET /api/series/query as objects: every station's series at the step (the range was checked against the row limit). */
 export async function querySeries(db: Db, query: SeriesQuery): Promise<SeriesQueryResponse> {
   const stations = await getQueryStations(db, query.stationIds);
   const series: StationSeries[] = [];

@@ -107,6 +107,7 @@ const APP_TABLES: (keyof Database)[] = [
   'station_series_hourly',
   'station_series_daily',
   'station_series_state',
+  'api_token',
 ];
 
 /** Empties the given tables (default: every app table); CASCADE takes rows that point at them. */
