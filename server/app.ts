@@ -17,6 +17,7 @@ import { inkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
 import { lessonsRoutes, noIndex, sharedLessonRoutes } from './lessons/lessons.routes';
+import { openApiRoutes } from './openapi/openapi.routes';
 import { peopleRoutes } from './people/people.routes';
 import { scansRoutes } from './scans/scans.routes';
 import { seriesRoutes } from './series/series.routes';
@@ -54,6 +55,7 @@ export function createApp(deps: AppDeps): Express {
   app.use('/api/lessons', authenticate, lessonsRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticateRead));
+  app.use('/api', openApiRoutes());
   app.use('/api', apiNotFound);
   app.use('/iiif', iiifRoutes(deps, authenticate));
   app.use('/iiif', apiNotFound);
