@@ -1,6 +1,8 @@
 // One jest run, four projects. scripts/test.ts runs them one after another so the output shows each suite's count.
 const swc = ['@swc/jest', { jsc: { parser: { syntax: 'typescript' }, target: 'es2022' }, module: { type: 'commonjs' } }];
 const sharedAlias = { '^@shared/(.*)$': '<rootDir>/shared/$1' };
+// netcdfjs (the NetCDF reader the tests read files back with) and its iobuffer ship as ES modules only.
+const esmPackages = { transform: { '^.+\\.ts$': swc, '/node_modules/(netcdfjs|iobuffer)/.+\\.js$': swc }, transformIgnorePatterns: ['/node_modules/(?!(netcdfjs|iobuffer)/)'] };
 
 /** @type {import('jest').Config} */
 module.exports = {
@@ -14,7 +16,7 @@ module.exports = {
       rootDir: __dirname,
       roots: ['<rootDir>/shared', '<rootDir>/server', '<rootDir>/scripts', '<rootDir>/fixtures'],
       testMatch: ['**/*.spec.ts'],
-      transform: { '^.+\\.ts$': swc },
+      ...esmPackages,
       moduleNameMapper: sharedAlias,
     },
     {
@@ -36,7 +38,7 @@ module.exports = {
       rootDir: __dirname,
       roots: ['<rootDir>/test/api'],
       testMatch: ['**/*.api.spec.ts'],
-      transform: { '^.+\\.ts$': swc },
+      ...esmPackages,
       moduleNameMapper: sharedAlias,
       globalSetup: '<rootDir>/test/setup/api-global-setup.ts',
       setupFilesAfterEnv: ['<rootDir>/test/setup/api-timeout.ts'],

@@ -34,6 +34,9 @@ import * as createTracePriority from './2026_12_04_0920_create_trace_priority';
 import * as createChartClaim from './2026_12_04_0930_create_chart_claim';
 import * as createCrossTraceAgreement from './2026_12_04_0940_create_cross_trace_agreement';
 import * as allowReviewAudit from './2026_12_04_0950_allow_review_audit';
+import * as createStationSeries from './2026_12_04_1100_create_station_series';
+import * as recordExistingSeriesLines from './2026_12_04_1110_record_existing_series_lines';
+import * as createApiToken from './2026_12_04_1120_create_api_token';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -76,4 +79,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_04_0930_create_chart_claim': createChartClaim,
   '2026_12_04_0940_create_cross_trace_agreement': createCrossTraceAgreement,
   '2026_12_04_0950_allow_review_audit': allowReviewAudit,
+  '2026_12_04_1100_create_station_series': createStationSeries,
+  '2026_12_04_1110_record_existing_series_lines': recordExistingSeriesLines,
+  '2026_12_04_1120_create_api_token': createApiToken,
 };

@@ -1,7 +1,9 @@
 import express, { type Express } from 'express';
 import { pinoHttp } from 'pino-http';
 import type { AppDeps } from './app-deps';
+import { apiTokensRoutes } from './api-tokens/api-tokens.routes';
 import { authRoutes } from './auth/auth.routes';
+import { createAuthenticateRead } from './auth/authenticate-read';
 import { createAuthenticate, defaultStrategies } from './auth/authenticate';
 import { chartFormsRoutes } from './chart-forms/chart-forms.routes';
 import { errorHandler } from './errors/error-handler';
@@ -21,6 +23,7 @@ import { createMailer } from './mail/mailer';
 import { capturedMailsRoutes } from './mail/captured-mails.routes';
 import { lessonsRoutes, noIndex, sharedLessonRoutes } from './lessons/lessons.routes';
 import { invitationsRoutes } from './people/invitations.routes';
+import { openApiRoutes } from './openapi/openapi.routes';
 import { peopleRoutes } from './people/people.routes';
 import { reviewRoutes } from './review/review.routes';
 import { scansRoutes } from './scans/scans.routes';
@@ -42,6 +45,8 @@ export function createApp(given: AppDeps): Express {
   app.use(securityHeaders({ behindTls: deps.config.behindTls }));
 
   const authenticate = createAuthenticate(defaultStrategies(deps.db, deps.config.jwtSecret));
+  // The series, coverage and station reads also take API tokens (authenticate-read.ts).
+  const authenticateRead = createAuthenticateRead(deps.db, authenticate);
   app.use(['/api', '/iiif'], strictQuery);
   app.use('/api/health', healthRoutes());
   // Before the app-wide JSON parser, which would refuse a long ink line.
@@ -49,7 +54,8 @@ export function createApp(given: AppDeps): Express {
   app.use(express.json({ limit: JSON_BODY_LIMIT }));
   app.use(refuseNul);
   app.use('/api/auth', authRoutes(deps, authenticate));
-  app.use('/api/stations', authenticate, stationsRoutes(deps));
+  app.use('/api/stations', authenticateRead, stationsRoutes(deps));
+  app.use('/api/tokens', authenticate, apiTokensRoutes(deps));
   app.use('/api/instruments', authenticate, instrumentsRoutes(deps));
   app.use('/api/chart-forms', authenticate, chartFormsRoutes(deps));
   app.use('/api/intake', authenticate, intakeRoutes(deps));
@@ -61,7 +67,8 @@ export function createApp(given: AppDeps): Express {
   app.use('/api/ink-lines', authenticate, myInkLinesRoutes(deps));
   app.use('/api/shared', sharedLessonRoutes(deps));
   app.use('/api/dev/mails', authenticate, capturedMailsRoutes(deps));
-  app.use('/api', seriesRoutes(deps, authenticate));
+  app.use('/api', seriesRoutes(deps, authenticateRead));
+  app.use('/api', openApiRoutes());
   app.use('/api', reviewRoutes(deps, authenticate));
   app.use('/api', deskRoutes(deps, authenticate));
   app.use('/api', apiNotFound);

@@ -2,6 +2,7 @@ import type { RequestHandler } from 'express';
 import { Passport, type Strategy } from 'passport';
 import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
+import { bearerApiToken } from './authenticate-read';
 import { jwtStrategy, SESSION_ENDED } from './jwt-strategy';
 import type { SignedInPerson } from './signed-in-person';
 
@@ -28,6 +29,10 @@ export function createAuthenticate(strategies: AuthStrategy[]): RequestHandler {
   for (const { name, strategy } of strategies) passport.use(name, strategy);
   const names = strategies.map((s) => s.name);
   return (req, res, next) => {
+    // An API token is not a sign-in: say so instead of "Please sign in" (authenticate-read.ts takes it where it works).
+    if (bearerApiToken(req.headers.authorization) !== null) {
+      return next(new AppError(HTTP.forbidden, 'api_token_not_allowed', 'API tokens open only the series, coverage and station routes, to read.'));
+    }
     // A custom callback so that an expired token can be told apart from a missing or forged one.
     passport.authenticate(names, { session: false }, (error: unknown, user: SignedInPerson | false, info: unknown) => {
       if (error) return next(error);

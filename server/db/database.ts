@@ -1,4 +1,5 @@
 import type { Kysely, Transaction } from 'kysely';
+import type { ApiTokenTable } from '../api-tokens/api-token.table';
 import type { ScanAuditTable } from '../audit/scan-audit.table';
 import type { ChartFormTable } from '../chart-forms/chart-form.table';
 import type { DemoSeedTable } from '../demo/demo-seed.table';
@@ -15,6 +16,7 @@ import type { CrossTraceAgreementTable, InkLineReviewTable } from '../review/rev
 import type { ScanTable } from '../scans/scan.table';
 import type { SeriesChangeTable } from '../series/series-change.table';
 import type { SeriesPointTable } from '../series/series-point.table';
+import type { StationSeriesAggregateTable, StationSeriesPointTable, StationSeriesStateTable } from '../series/station-series.table';
 import type { StationTable } from '../stations/station.table';
 
 /** Every table, keyed by its SQL name; each feature owns its `*.table.ts`. */
@@ -43,6 +45,11 @@ export interface Database {
   station_tracing: StationTracingTable;
   trace_priority: TracePriorityTable;
   chart_claim: ChartClaimTable;
+  station_series_point: StationSeriesPointTable;
+  station_series_hourly: StationSeriesAggregateTable;
+  station_series_daily: StationSeriesAggregateTable;
+  station_series_state: StationSeriesStateTable;
+  api_token: ApiTokenTable;
 }
 
 export type Db = Kysely<Database>;

@@ -6,6 +6,7 @@ import * as scansRepository from '../scans/scans.repository';
 import type { Storage } from '../storage/storage';
 import { DERIVATIVES_QUEUE, JOB_SCHEMA, pgBossDerivativeJobs, type DerivativeJobData } from './job-boss';
 import { makeDerivatives } from './make-derivatives';
+import { startSeriesWorker } from './series-jobs';
 
 export interface WorkerDeps {
   db: Db;
@@ -66,7 +67,7 @@ async function runJob(deps: WorkerDeps, job: PgBoss.JobWithMetadata<DerivativeJo
 
 /**
  * Takes `scan-derivatives` jobs one at a time (the machine has few cores and each job decodes a whole
- * scan). First requeues scans a crash left behind.
+ * scan). First requeues scans a crash left behind. Beside them it keeps the station series built (series-jobs.ts).
  */
 export async function startWorker(deps: WorkerDeps): Promise<RunningWorker> {
   const inFlight = new Set<Promise<void>>();
@@ -86,8 +87,10 @@ export async function startWorker(deps: WorkerDeps): Promise<RunningWorker> {
       }
     },
   );
+  const seriesWorker = await startSeriesWorker({ db: deps.db, boss: deps.boss, logger: deps.logger, pollingIntervalSeconds: deps.pollingIntervalSeconds });
   return {
     async stop() {
+      await seriesWorker.stop();
       await deps.boss.offWork({ id: workerId });
       await Promise.allSettled([...inFlight]);
     },

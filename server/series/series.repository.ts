@@ -13,6 +13,7 @@ export interface NewSeriesPoint {
 const INSERT_BATCH_ROWS = 2000;
 const READ_BATCH_ROWS = 5000;
 
+
 export async function insertSeriesPoints(db: DbOrTrx, inkLineId: string, stationId: string, points: NewSeriesPoint[]): Promise<void> {
   for (let start = 0; start < points.length; start += INSERT_BATCH_ROWS) {
     const batch = points.slice(start, start + INSERT_BATCH_ROWS);

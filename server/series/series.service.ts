@@ -1,107 +1,119 @@
-import { SERIES_POINT_LIMIT, type SeriesPoint, type SeriesResponse } from '@shared/api/series';
-import { type ChartSeries, mergeChartSeries } from '@shared/domain/merge-series';
+import { SERIES_FLAGS, SERIES_POINT_LIMIT, type SeriesPoint, type SeriesResponse } from '@shared/api/series';
+import type { SeriesQueryResponse, StationSeries } from '@shared/api/series-query';
+import type { StationSummary } from '@shared/api/stations';
 import type { Db } from '../db/database';
 import * as stationsService from '../stations/stations.service';
-import * as seriesRepository from './series.repository';
-import type { InkLineSpan, SeriesRange, StoredSeriesPoint } from './series.repository';
+import type { SeriesQuery } from './parse-series-query';
+import { buildPendingSeries } from './series-build';
+import * as seriesReadRepository from './series-read.repository';
+import type { SeriesRange } from './series.repository';
+import * as stationSeriesRepository from './station-series.repository';
+
+export interface SeriesVersion {
+  version: number;
+  builtAt: string | null;
+}
 
 /**
- * Coverage factor k of the overlap check: two ink lines disagreeing by more than k·√(u₁² + u₂²) make the
- * point suspect. k = 2 covers about 95 % of honest disagreements (GUM, JCGM 100:2008 §6.3, from memory);
- * k = 1 would flag a third of them.
+ * The station's series version, built first when series_change rows wait that the series job has not read
+ * yet: a reader always sees every decision already made (the job keeps this quick by building ahead).
  */
-const SUSPECT_COVERAGE_FACTOR = 2;
-
-/**
- * Merges one batch of stored points (whole times, see streamStoredPoints) into the station series, one point
- * per time. Merge rule: project design, see shared/domain/merge-series.ts (the most interior chart wins;
- * a disagreement beyond the combined uncertainty is suspect). Each ink line is one chart, spanning its
- * InkLineSpan.
- */
-export function mergeStoredPoints(points: readonly StoredSeriesPoint[], spans: ReadonlyMap<string, InkLineSpan>): SeriesPoint[] {
-  const charts = new Map<string, ChartSeries>();
-  for (const point of points) {
-    let chart = charts.get(point.inkLineId);
-    if (!chart) {
-      const span = spans.get(point.inkLineId);
-      chart = {
-        sourceId: point.inkLineId,
-        chartOnMs: span?.startMs ?? point.timeMs,
-        chartOffMs: span?.endMs ?? point.timeMs,
-        points: [],
-      };
-      charts.set(point.inkLineId, chart);
-    }
-    chart.points.push({ timeMs: point.timeMs, pressureHpa: point.pressureHpa, flag: point.flag, uncertaintyHpa: point.uncertaintyHpa });
+export async function currentSeriesVersion(db: Db, stationId: string): Promise<SeriesVersion> {
+  let state = await stationSeriesRepository.findState(db, stationId);
+  if (state.hasPendingChanges) {
+    await buildPendingSeries(db, stationId);
+    state = await stationSeriesRepository.findState(db, stationId);
   }
-  // Ink lines in id order, so that a tie (a cross-trace of the same chart) always goes the same way.
-  const ordered = [...charts.values()].sort((a, b) => (a.sourceId < b.sourceId ? -1 : a.sourceId > b.sourceId ? 1 : 0));
-  return mergeChartSeries(ordered, { coverageFactor: SUSPECT_COVERAGE_FACTOR }).flatMap((merged) =>
-    // Stored points always carry a pressure, so every merged point has one and a source.
-    merged.pressureHpa === null || merged.sourceId === null
-      ? []
-      : [
-          {
-            time: new Date(merged.timeMs).toISOString(),
-            pressureHpa: merged.pressureHpa,
-            flag: merged.flag,
-            uncertaintyHpa: merged.uncertaintyHpa,
-            inkLineId: merged.sourceId,
-          },
-        ],
-  );
+  return { version: state.version, builtAt: state.builtAt ? state.builtAt.toISOString() : null };
 }
 
-interface MergedBatch {
-  stored: StoredSeriesPoint[];
-  points: SeriesPoint[];
-}
-
-/** The station series of the range, merged batch by batch in time order; spans are read once per ink line. */
-async function* mergeStationSeries(db: Db, range: SeriesRange): AsyncGenerator<MergedBatch> {
-  const spans = new Map<string, InkLineSpan>();
-  for await (const stored of seriesRepository.streamStoredPoints(db, range)) {
-    const unknownIds = [...new Set(stored.map((point) => point.inkLineId))].filter((id) => !spans.has(id));
-    for (const span of await seriesRepository.findInkLineSpans(db, unknownIds)) spans.set(span.inkLineId, span);
-    yield { stored, points: mergeStoredPoints(stored, spans) };
-  }
-}
-
+/** One station's merged points over a range (the Lessons passage and GET /api/series), at most SERIES_POINT_LIMIT. */
 export async function getSeries(db: Db, range: SeriesRange): Promise<SeriesResponse> {
   await stationsService.getStation(db, range.stationId);
-  const points: SeriesPoint[] = [];
-  const sourceIds = new Set<string>();
-  let truncated = false;
-  for await (const batch of mergeStationSeries(db, range)) {
-    const room = SERIES_POINT_LIMIT - points.length;
-    const kept = batch.points.slice(0, room);
-    points.push(...kept);
-    // Count the ink lines behind the points kept: a line seen only after the cut did not contribute.
-    const lastKeptMs = kept.length > 0 ? Date.parse(kept[kept.length - 1].time) : Number.NEGATIVE_INFINITY;
-    for (const stored of batch.stored) if (stored.timeMs <= lastKeptMs) sourceIds.add(stored.inkLineId);
-    if (batch.points.length > room) {
-      truncated = true;
-      break;
-    }
-  }
+  const { version, builtAt } = await currentSeriesVersion(db, range.stationId);
+  const read = await seriesReadRepository.readRawPoints(db, { ...range, flags: null }, false, SERIES_POINT_LIMIT + 1);
+  const truncated = read.length > SERIES_POINT_LIMIT;
+  const points: SeriesPoint[] = read.slice(0, SERIES_POINT_LIMIT);
   return {
     stationId: range.stationId,
     from: new Date(range.fromMs).toISOString(),
     to: new Date(range.toMs).toISOString(),
     points,
     truncated,
-    sourceCount: sourceIds.size,
+    sourceCount: new Set(points.map((point) => point.inkLineId)).size,
+    version,
+    builtAt,
   };
 }
 
-/** The station (404 if unknown) and a batch-by-batch reader of the merged station series of the range. */
+/** The station (404 if unknown), its version and a batch-by-batch reader of its merged points over the range. */
 export async function openSeriesExport(
   db: Db,
   range: SeriesRange,
-): Promise<{ stationCode: string; batches: AsyncGenerator<SeriesPoint[]> }> {
+): Promise<{ station: StationSummary; version: SeriesVersion; batches: AsyncGenerator<SeriesPoint[]> }> {
   const station = await stationsService.getStation(db, range.stationId);
-  async function* pointBatches(): AsyncGenerator<SeriesPoint[]> {
-    for await (const batch of mergeStationSeries(db, range)) yield batch.points;
-  }
-  return { stationCode: station.code, batches: pointBatches() };
+  const version = await currentSeriesVersion(db, range.stationId);
+  return { station, version, batches: seriesReadRepository.streamRawPoints(db, { ...range, flags: null }) };
+}
+
+/** Stations of a query in the order asked (404 station_not_found for the first unknown one). */
+export async function getQueryStations(db: Db, stationIds: readonly string[]): Promise<StationSummary[]> {
+  const stations: StationSummary[] = [];
+  for (const stationId of stationIds) stations.push(await stationsService.getStation(db, stationId));
+  return stations;
+}
+
+/** One station's part of a query answer: its version, and its points or buckets at the step. */
+export async function queryStationSeries(db: Db, station: StationSummary, query: SeriesQuery): Promise<StationSeries> {
+  const { version, builtAt } = await currentSeriesVersion(db, station.id);
+  const read = { stationId: station.id, fromMs: query.fromMs, toMs: query.toMs, flags: query.flags };
+  const points =
+    query.step === 'raw'
+      ? await seriesReadRepository.readRawPoints(db, read, query.withProvenance)
+      : await seriesReadRepository.readBuckets(db, read, query.step, query.aggregate);
+  return { stationId: station.id, stationCode: station.code, stationName: station.name, version, builtAt, points };
+}
+
+/**
+ * GET /api/series/query as JSON text (the shape of SeriesQueryResponse). The points come as JSON built by
+ * PostgreSQL (series-read.repository.ts), spliced into the envelope; provenance takes the row path.
+ */
+export async function querySeriesJson(db: Db, query: SeriesQuery): Promise<string> {
+  if (query.withProvenance) return JSON.stringify(await querySeries(db, query));
+  const stations = await getQueryStations(db, query.stationIds);
+  const parts: string[] = [];
+  for (const station of stations) parts.push(await queryStationSeriesJson(db, station, query));
+  const envelope = JSON.stringify({
+    from: new Date(query.fromMs).toISOString(),
+    to: new Date(query.toMs).toISOString(),
+    step: query.step,
+    aggregate: query.step === 'raw' ? null : query.aggregate,
+    flags: query.flags ?? [...SERIES_FLAGS],
+  });
+  return `${envelope.slice(0, -1)},"stations":[${parts.join(',')}]}`;
+}
+
+/** One station's part of querySeriesJson. */
+export async function queryStationSeriesJson(db: Db, station: StationSummary, query: SeriesQuery): Promise<string> {
+  const { version, builtAt } = await currentSeriesVersion(db, station.id);
+  const read = { stationId: station.id, fromMs: query.fromMs, toMs: query.toMs, flags: query.flags };
+  const points =
+    query.step === 'raw' ? await seriesReadRepository.readRawPointsJson(db, read) : await seriesReadRepository.readBucketsJson(db, read, query.step, query.aggregate);
+  const head = JSON.stringify({ stationId: station.id, stationCode: station.code, stationName: station.name, version, builtAt });
+  return `${head.slice(0, -1)},"points":${points}}`;
+}
+
+/** GET /api/series/query as objects: every station's series at the step (the range was checked against the row limit). */
+export async function querySeries(db: Db, query: SeriesQuery): Promise<SeriesQueryResponse> {
+  const stations = await getQueryStations(db, query.stationIds);
+  const series: StationSeries[] = [];
+  for (const station of stations) series.push(await queryStationSeries(db, station, query));
+  return {
+    from: new Date(query.fromMs).toISOString(),
+    to: new Date(query.toMs).toISOString(),
+    step: query.step,
+    aggregate: query.step === 'raw' ? null : query.aggregate,
+    flags: query.flags ?? [...SERIES_FLAGS],
+    stations: series,
+  };
 }

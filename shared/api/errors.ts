@@ -65,6 +65,13 @@ export type ApiErrorCode =
   /** The chart already has as many independent ink lines as its station needs. */
   | 'chart_fully_traced'
   | 'claim_not_found'
+  /** A series range longer than the step allows; details give the limit and a coarser step. */
+  | 'series_range_too_large'
+  /** An API token (not a sign-in) on a route that tokens do not open, or on a write. */
+  | 'api_token_not_allowed'
+  /** A NetCDF file asked for a range with no points: there is nothing to write. */
+  | 'series_empty'
+  | 'api_token_not_found'
   | 'rate_limited'
   /** No mail server is set up, or it refused the mail. */
   | 'mail_unavailable'

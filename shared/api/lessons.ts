@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { normalizeInstant, type Parsed } from './field-reader';
+import { parseWith } from './parse-with';
 import type { SeriesPoint } from './series';
 
 /** Kinds of a front note: the fronts and pressure features of the trade, or none. */
@@ -120,17 +121,7 @@ export const shareLinkPatchSchema = z
 export type ShareLinkCreate = z.output<typeof shareLinkCreateSchema>;
 export type ShareLinkPatch = z.output<typeof shareLinkPatchSchema>;
 
-/** Runs a schema and reports its problems as `details` keyed by dotted path (`notes.2.time`), as the other parsers do. */
-export function parseWith<S extends z.ZodType>(schema: S, body: unknown): Parsed<z.output<S>> {
-  const result = schema.safeParse(body);
-  if (result.success) return { ok: true, value: result.data };
-  const details: Record<string, string> = {};
-  for (const issue of result.error.issues) {
-    const key = issue.path.length > 0 ? issue.path.join('.') : 'body';
-    details[key] ??= issue.code === 'unrecognized_keys' ? `unknown field(s): ${issue.keys.join(', ')}` : issue.message;
-  }
-  return { ok: false, details };
-}
+export { parseWith };
 
 export const parseLessonCreate = (body: unknown) => parseWith(lessonCreateSchema, body);
 export const parseLessonPatch = (body: unknown) => parseWith(lessonPatchSchema, body);

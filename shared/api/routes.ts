@@ -44,6 +44,13 @@ export const API = {
   stationTracing: (stationId: string) => `/api/tracing/stations/${enc(stationId)}`,
   series: '/api/series',
   seriesCsv: '/api/series.csv',
+  /** Steps, aggregates, flags, several stations, JSON / CSV / CF NetCDF. */
+  seriesQuery: '/api/series/query',
+  stationCoverage: (stationId: string) => `/api/stations/${enc(stationId)}/coverage`,
+  apiTokens: '/api/tokens',
+  apiToken: (tokenId: string) => `/api/tokens/${enc(tokenId)}`,
+  openApi: '/api/openapi.json',
+  apiReference: '/api/reference',
   people: '/api/people',
   person: (personId: string) => `/api/people/${enc(personId)}`,
   peopleChanges: '/api/people/changes',

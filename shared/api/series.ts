@@ -21,8 +21,12 @@ export interface SeriesResponse {
   points: SeriesPoint[];
   /** True when more points exist in the range than `limit` allowed; narrow the range. */
   truncated: boolean;
-  /** How many ink lines were merged into these points (chosen at some time or compared against the chosen one). */
+  /** How many ink lines these points were taken from. */
   sourceCount: number;
+  /** The series version these points are from: it rises by one with every ink line entering or leaving the series. */
+  version: number;
+  /** When that version was built (ISO 8601 UTC); null before the station's first build. */
+  builtAt: string | null;
 }
 
 /** Largest number of points one series request returns; the CSV export streams without this cap. */

@@ -74,7 +74,7 @@ describe('who may call each route', () => {
   }
 
   async function count(
-    table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch' | 'lesson' | 'lesson_share' | 'invitation' | 'people_change',
+    table: 'scan' | 'ink_line' | 'station' | 'instrument' | 'chart_form' | 'intake_batch' | 'lesson' | 'lesson_share' | 'invitation' | 'people_change' | 'api_token',
   ): Promise<number> {
     const { total } = await context.db.selectFrom(table).select((eb) => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow();
     return total;
@@ -278,6 +278,33 @@ describe('who may call each route', () => {
       roles: ['climatologist', 'teacher'],
       successStatus: 200,
       call: (token) => withToken(request(context.app).get(API.series).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
+    },
+    {
+      name: 'GET /api/series/query',
+      roles: ['climatologist', 'teacher'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.seriesQuery).query({ stationId, from: '2026-03-01', to: '2026-03-08', step: 'daily' }), token),
+    },
+    {
+      name: 'GET /api/stations/:stationId/coverage',
+      roles: ['climatologist', 'teacher'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.stationCoverage(stationId)), token),
+    },
+    { name: 'GET /api/tokens', roles: ['climatologist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.apiTokens), token) },
+    {
+      name: 'POST /api/tokens',
+      roles: ['climatologist'],
+      successStatus: 201,
+      call: (token) => withToken(request(context.app).post(API.apiTokens), token).send({ name: 'roles test' }),
+      sideEffectCount: () => count('api_token'),
+    },
+    {
+      name: 'DELETE /api/tokens/:tokenId',
+      roles: ['climatologist'],
+      // Nobody holds this token, so a climatologist gets past the role check to its 404.
+      successStatus: 404,
+      call: (token) => withToken(request(context.app).delete(API.apiToken('00000000-0000-4000-8000-000000000000')), token),
     },
     {
       name: 'GET /api/series.csv',
@@ -536,7 +563,8 @@ describe('who may call each route', () => {
     const link = await request(context.app).post(API.lessonShares(lessonId)).set('Authorization', `Bearer ${people.teacher.token}`).send({ expiresAt: null });
     lessonShareId = link.body.id;
     lessonToken = link.body.token;
-  });
+    // Many fixtures (people, scans, a traced front, a lesson): seconds on a loaded machine.
+  }, 30_000);
 
   afterAll(async () => {
     await truncateTables(context.db);

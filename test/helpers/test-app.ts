@@ -118,6 +118,12 @@ const APP_TABLES: (keyof Database)[] = [
   'person_role',
   'person',
   'demo_seed',
+  'series_change',
+  'station_series_point',
+  'station_series_hourly',
+  'station_series_daily',
+  'station_series_state',
+  'api_token',
 ];
 
 /** Empties the given tables (default: every app table); CASCADE takes rows that point at them. */

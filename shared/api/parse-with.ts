@@ -1,0 +1,14 @@
+import type { z } from 'zod';
+import type { Parsed } from './field-reader';
+
+/** Runs a schema and reports its problems as `details` keyed by dotted path (`notes.2.time`), as the other parsers do. */
+export function parseWith<S extends z.ZodType>(schema: S, body: unknown): Parsed<z.output<S>> {
+  const result = schema.safeParse(body);
+  if (result.success) return { ok: true, value: result.data };
+  const details: Record<string, string> = {};
+  for (const issue of result.error.issues) {
+    const key = issue.path.length > 0 ? issue.path.join('.') : 'body';
+    details[key] ??= issue.code === 'unrecognized_keys' ? `unknown field(s): ${issue.keys.join(', ')}` : issue.message;
+  }
+  return { ok: false, details };
+}
