@@ -189,8 +189,9 @@ describe('handing in an ink line', () => {
 
     const response = await handIn(syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START));
 
+    // The session is checked against the database before the route runs: the removed person's token has ended.
     expect(response.status).toBe(401);
-    expect(response.body.error.code).toBe('unauthenticated');
+    expect(response.body.error.code).toBe('session_ended');
     expect(await countRows('pin_set')).toBe(0);
     const scan = await context.db.selectFrom('scan').select('status').where('id', '=', scanId).executeTakeFirstOrThrow();
     expect(scan.status).toBe('ready_to_trace');

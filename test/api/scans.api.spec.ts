@@ -184,13 +184,14 @@ describe('scan upload', () => {
   });
 
   it('when the row cannot be written after the file was kept, then the new master and preview are removed', async () => {
-    // The uploader's account is removed after their token was issued: the insert fails on its reference.
+    // The uploader's account is removed after their token was issued: the session check refuses the request
+    // before the file is received, so nothing is kept (once the insert failed on its reference, later).
     await context.db.deleteFrom('person').where('id', '=', archivist.id).execute();
 
     const response = await upload(await makePng(), 'orphan.png');
 
     expect(response.status).toBe(401);
-    expect(response.body.error.code).toBe('unauthenticated');
+    expect(response.body.error.code).toBe('session_ended');
     expect(await scanRowCount()).toBe(0);
     expect(await listFiles(path.join(context.storage.rootDir, 'masters'))).toEqual([]);
     expect(await listFiles(path.join(context.storage.rootDir, 'previews'))).toEqual([]);
