@@ -110,7 +110,10 @@ export async function handInInkLine(db: Db, scanId: string, handIn: HandInReques
 /** Work stored before drafts existed is `{}`: rebuilt from the pin set and the knots. */
 function workOf(row: inkLinesRepository.MyInkLineRow): BenchWork {
   const work = row.work;
-  const knots = row.status === 'draft' && Array.isArray(work.knots) ? work.knots : row.knots;
+  // A handed-in line keeps its knots in the knots column only (work.knots is []), and a reworked line is a draft
+  // again with that work: its knots come from the column until the volunteer's first save writes them.
+  const draftKnots = row.status === 'draft' && Array.isArray(work.knots) ? work.knots : [];
+  const knots = draftKnots.length > 0 || row.knots.length === 0 ? draftKnots : row.knots;
   if (Array.isArray(work.pins)) return { ...EMPTY_BENCH_WORK, ...work, knots };
   return { ...EMPTY_BENCH_WORK, step: 'proof', pins: row.pins ?? [], knots: row.knots };
 }

@@ -12,9 +12,7 @@ import { findInkLinesRequired, findScanInkLines } from './ink-line-state.reposit
 export async function checkMayHandIn(trx: DbOrTrx, scan: { id: string; stationId: string | null }, authorId: string): Promise<{ draftId: string | null }> {
   const lines = await findScanInkLines(trx, scan.id);
   const own = lines.filter((line) => line.authorId === authorId);
-  if (own.some((line) => line.status === 'handed_in' || line.status === 'approved')) {
-    throw new AppError(HTTP.conflict, 'own_chart_cross_trace', 'You have already handed in a line of this chart; its cross-trace must come from another volunteer.');
-  }
+  // A line of the caller's own already handed in is refused before this (already_handed_in, ink-lines.service.ts).
   if (own.some((line) => line.status === 'returned')) {
     throw new AppError(HTTP.conflict, 'rework_returned_line_first', 'Your line of this chart was returned: rework it from the Desk rather than starting another.');
   }

@@ -58,8 +58,6 @@ export type ApiErrorCode =
   | 'knots_out_of_time_order'
   | 'span_outside_drum_period'
   | 'pin_rms_over_limit'
-  /** The volunteer already handed in a line of this chart; a cross-trace must come from someone else. */
-  | 'own_chart_cross_trace'
   /** The volunteer's earlier line of this chart was returned: rework that one instead of starting another. */
   | 'rework_returned_line_first'
   /** The chart already has as many independent ink lines as its station needs. */

@@ -176,7 +176,7 @@ describe('cross-trace', () => {
     expect(firstAgain.body.claim).toBeNull();
     expect(secondClaim.body.claim.scanId).toBe(scanId);
     expect(ownCrossTrace.status).toBe(409);
-    expect(ownCrossTrace.body.error.code).toBe('own_chart_cross_trace');
+    expect(ownCrossTrace.body.error.code).toBe('already_handed_in');
     // Independence: the second volunteer reaches neither the first line, its pins, nor a series holding it.
     expect(peek.status).toBe(403);
     expect(secondsWaiting.body.items).toEqual([]);

@@ -73,11 +73,12 @@ const typed = (iso: string) => `${iso.slice(0, 10)} ${iso.slice(11, 16)}`;
 
 describe('the Bench, whole', () => {
   let workDir: string;
+  let databaseUrl: string;
   let server: RunningServer;
   let chromium: BrowserSession;
 
   beforeAll(async () => {
-    ({ server, workDir } = await startE2eServer('bench-whole', { withWorker: true }));
+    ({ server, workDir, databaseUrl } = await startE2eServer('bench-whole', { withWorker: true }));
     chromium = await launchChromium();
   });
 
@@ -175,7 +176,7 @@ describe('the Bench, whole', () => {
     console.log(`Bench effort, Desk to Hand in: ${effort.clicks} clicks + ${effort.keystrokes} keystrokes = ${effort.clicks + effort.keystrokes}`);
 
     // Assert: the stored series of the volunteer's line, against the generator's truth.
-    const db = createDb(process.env['E2E_DATABASE_URL'] as string, 1);
+    const db = createDb(databaseUrl, 1);
     try {
       const line = await db
         .selectFrom('ink_line')

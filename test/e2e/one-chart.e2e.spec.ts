@@ -106,9 +106,11 @@ describe('one chart from upload to station series', () => {
       (await apiCall<{ points: unknown[] }>(server.url, climatologistToken, `/api/series?stationId=${saltmereId}&from=2026-04-06&to=2026-04-12`)).points.length;
 
     // Act 2: the volunteer takes the next chart, pins four grid crossings and clicks knots along the pen line.
-    const traceOnBench = async () => {
+    const traceOnBench = async (isResumed: boolean) => {
       await page.getByTestId('scan-stage').locator('canvas').first().waitFor();
       await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
+      // A reworked line comes back onto the Bench with its pins: wait for them before deciding what to trace.
+      if (isResumed) await expectCount(page, 'pin-row', 4);
       let view = await readStageView(page);
       // A reworked line may come back onto the Bench with its pins and knots; only an empty Bench is traced again.
       if ((await page.getByTestId('pin-row').count()) === 0) {
@@ -141,7 +143,7 @@ describe('one chart from upload to station series', () => {
     await page.getByTestId('next-chart').click();
     await page.locator(`[data-testid="desk-claim"][data-scan-id="${scanId}"]`).waitFor();
     await page.getByTestId('claim-open').click();
-    await traceOnBench();
+    await traceOnBench(false);
     await signOut(page);
     const pointsAfterHandIn = await seriesPoints();
 
@@ -163,7 +165,7 @@ describe('one chart from upload to station series', () => {
     const returnedRow = page.getByTestId('desk-returned-table').getByTestId('desk-line').filter({ hasText: 'saltmere-week-15.png' });
     await returnedRow.getByTestId('return-note').filter({ hasText: 'check the pins against the printed grid' }).waitFor();
     await returnedRow.getByTestId('rework').click();
-    const handedInPointCount = await traceOnBench();
+    const handedInPointCount = await traceOnBench(true);
     await signOut(page);
     const pointsBeforeApproval = await seriesPoints();
 

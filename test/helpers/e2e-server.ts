@@ -29,15 +29,19 @@ async function freshSuiteDatabase(e2eUrl: string, suite: string): Promise<string
 
 /**
  * Starts the real server in-process for one browser suite: a fresh database of its own on the e2e server from
- * scripts/test.ts, a storage folder of its own, the built client and the demo scenario. The caller closes the
- * server and removes `workDir`.
+ * scripts/test.ts (`databaseUrl`, for a test that reads the stored rows), a storage folder of its own, the built
+ * client and the demo scenario. The caller closes the server and removes `workDir`.
  */
-export async function startE2eServer(suite: string, options: { withWorker?: boolean } = {}): Promise<{ server: RunningServer; workDir: string }> {
+export async function startE2eServer(
+  suite: string,
+  options: { withWorker?: boolean } = {},
+): Promise<{ server: RunningServer; workDir: string; databaseUrl: string }> {
   const workDir = mkdtempSync(join(tmpdir(), `isallo-e2e-${suite}-`));
   const e2eUrl = process.env['E2E_DATABASE_URL'];
   if (!e2eUrl) throw new Error('E2E_DATABASE_URL is not set; run the browser suite through scripts/test.ts');
+  const databaseUrl = await freshSuiteDatabase(e2eUrl, suite);
   const config = loadConfig({
-    DATABASE_URL: await freshSuiteDatabase(e2eUrl, suite),
+    DATABASE_URL: databaseUrl,
     JWT_SECRET: `e2e-secret-of-the-${suite}-suite`,
     PORT: '0',
     STORAGE_DIR: join(workDir, 'storage'),
@@ -47,5 +51,5 @@ export async function startE2eServer(suite: string, options: { withWorker?: bool
     MAIL_CAPTURE_DIR: process.env['MAIL_CAPTURE_DIR'],
   });
   const server = await startServer(config, { demoFixturesDir: join(ROOT, 'fixtures'), withWorker: options.withWorker ?? false });
-  return { server, workDir };
+  return { server, workDir, databaseUrl };
 }
