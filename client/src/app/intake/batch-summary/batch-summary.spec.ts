@@ -60,6 +60,19 @@ describe('BatchSummary', () => {
     expect(element.querySelector('[data-testid="summary-catalogue-link"]')?.getAttribute('href')).toBe('/archive?batchId=batch-1');
   });
 
+  it('when a batch holds one file, then it says "1 file", not "1 files"', async () => {
+    const fixture = TestBed.createComponent(BatchSummary);
+    fixture.componentRef.setInput('batchId', 'batch-1');
+    await fixture.whenStable();
+
+    controller.expectOne('/api/intake/batches/batch-1').flush({ ...BATCH, fileCount: 1 });
+    await fixture.whenStable();
+    const text = (fixture.nativeElement as HTMLElement).textContent ?? '';
+
+    expect(text).toContain('· 1 file');
+    expect(text).not.toContain('1 files');
+  });
+
   it('when the batch is asked for again, then the last summary stays on screen until the new one arrives', async () => {
     const fixture = TestBed.createComponent(BatchSummary);
     fixture.componentRef.setInput('batchId', 'batch-1');
