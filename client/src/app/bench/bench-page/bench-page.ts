@@ -6,6 +6,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { type InkLineSaved, type MyInkLine, parseInkLineDraft } from '@shared/api/ink-lines';
+import type { ChartFormSummary } from '@shared/api/chart-forms';
 import type { ScanDetail } from '@shared/api/scans';
 import { catchError, map, of, switchMap } from 'rxjs';
 
@@ -48,6 +49,7 @@ interface HandInProblem {
 export class BenchPage {
   private readonly scansApi = inject(ScansApi);
   private readonly inkLinesApi = inject(InkLinesApi);
+  private readonly chartFormsApi = inject(ChartFormsApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly previewUrls = new ObjectUrlHolder(this.destroyRef);
   protected readonly state = inject(BenchState);
@@ -80,8 +82,21 @@ export class BenchPage {
       ),
     ),
   );
-  private readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
-  protected readonly chartForm = computed(() => this.chartForms().find((form) => form.id === this.scan()?.chartFormId) ?? null);
+  /** The scan's own chart form, fetched by id once the scan is known; a scan without one has none. */
+  private readonly chartFormResult = toSignal(
+    toObservable(computed(() => this.scan()?.chartFormId ?? null)).pipe(
+      switchMap((chartFormId) =>
+        chartFormId === null
+          ? of({ form: null, failure: null })
+          : this.chartFormsApi.get(chartFormId).pipe(
+              map((form): { form: ChartFormSummary | null; failure: string | null } => ({ form, failure: null })),
+              catchError((error: unknown) => of({ form: null, failure: error instanceof ApiError ? error.message : 'The chart form could not be loaded.' })),
+            ),
+      ),
+    ),
+  );
+  protected readonly chartForm = computed(() => this.chartFormResult()?.form ?? null);
+  protected readonly chartFormFailure = computed(() => this.chartFormResult()?.failure ?? null);
 
   /** The volunteer's own line as the server had it when the Bench opened; undefined while loading. */
   protected readonly mine = signal<MyInkLine | null | undefined>(undefined);
