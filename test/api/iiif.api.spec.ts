@@ -72,7 +72,8 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
     const info = JSON.parse(response.text);
     // Required: @context, id (base URI, no trailing slash), type, protocol, profile, width, height (docs/references.md §7).
     expect(info['@context']).toBe('http://iiif.io/api/image/3/context.json');
-    expect(info.id).toMatch(new RegExp(`^http://127\\.0\\.0\\.1:\\d+/iiif/3/${scanId}$`));
+    // The base is the configured public URL (the test app's PUBLIC_URL), never the request's Host header.
+    expect(info.id).toBe(`http://isallo.test/iiif/3/${scanId}`);
     expect(info.type).toBe('ImageService3');
     expect(info.protocol).toBe('http://iiif.io/api/image');
     expect(info.profile).toBe('level2');

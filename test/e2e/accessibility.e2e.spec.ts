@@ -32,6 +32,13 @@ const firstOf = (path: string, rowTestId: string, link = 'a') => async (page: Pa
   await page.getByTestId(rowTestId).first().locator(link).first().click();
 };
 
+/** The volunteer's way to the Bench: Next chart claims the queue's first chart, then the claim opens it. */
+const claimNextChart = async (page: Page, baseUrl: string) => {
+  await page.goto(`${baseUrl}/desk`);
+  await page.getByTestId('next-chart').click();
+  await page.getByTestId('claim-open').click();
+};
+
 const VISITS: Record<string, PageVisit[]> = {
   'archivist@isallo.test': [
     { name: 'catalogue', open: goTo('/archive'), ready: '[data-testid="catalogue-row"]' },
@@ -44,8 +51,8 @@ const VISITS: Record<string, PageVisit[]> = {
     { name: 'new chart form', open: goTo('/archive/chart-forms/new'), ready: 'main h1' },
   ],
   'volunteer@isallo.test': [
-    { name: 'desk', open: goTo('/desk'), ready: '[data-testid="desk-row"]' },
-    { name: 'bench', open: firstOf('/desk', 'desk-row', '[data-testid="trace-link"]'), ready: '[data-testid="scan-stage"] canvas' },
+    { name: 'desk', open: goTo('/desk'), ready: '[data-testid="next-chart"]' },
+    { name: 'bench', open: claimNextChart, ready: '[data-testid="scan-stage"] canvas' },
   ],
   'climatologist@isallo.test': [{ name: 'series', open: goTo('/series'), ready: '[data-testid="series-station"]' }],
   'teacher@isallo.test': [

@@ -110,7 +110,11 @@ describe('one chart from upload to station series', () => {
       await page.getByTestId('scan-stage').locator('canvas').first().waitFor();
       await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
       // A reworked line comes back onto the Bench with its pins: wait for them before deciding what to trace.
-      if (isResumed) await expectCount(page, 'pin-row', 4);
+      // It reopens at the step where it was handed in, so the Pin step is opened to see them.
+      if (isResumed) {
+        await page.getByTestId('mode-pin').click();
+        await expectCount(page, 'pin-row', 4);
+      }
       let view = await readStageView(page);
       // A reworked line may come back onto the Bench with its pins and knots; only an empty Bench is traced again.
       if ((await page.getByTestId('pin-row').count()) === 0) {
