@@ -17,6 +17,7 @@ import type { RunningServer } from '../../server/server';
 import { chooseOption, launchChromium, signIn, signOut, type BrowserSession } from '../helpers/browser';
 import { putScanFirstInQueue } from '../helpers/api-client';
 import { startE2eServer } from '../helpers/e2e-server';
+import { readStageView, toScreen } from '../helpers/stage-view';
 
 const CHART_START = '2026-05-04T00:00:00Z';
 const INSTRUMENT = { clockOffsetMinutes: 25, clockDriftMinutesPerDay: 5, instrumentOffsetHpa: 1.2 };
@@ -25,26 +26,6 @@ const INSTRUMENT = { clockOffsetMinutes: 25, clockDriftMinutesPerDay: 5, instrum
 const RMSE_BAR_HPA = 0.35;
 
 jest.setTimeout(300_000);
-
-interface StageView {
-  left: number;
-  top: number;
-  scale: number;
-  x: number;
-  y: number;
-}
-
-async function readStageView(page: Page): Promise<StageView> {
-  const stage = page.getByTestId('scan-stage');
-  const box = await stage.boundingBox();
-  if (!box) throw new Error('scan-stage is not visible');
-  const read = async (name: string) => Number(await stage.getAttribute(name));
-  return { left: box.x, top: box.y, scale: await read('data-view-scale'), x: await read('data-view-x'), y: await read('data-view-y') };
-}
-
-function toScreen(view: StageView, point: { xPx: number; yPx: number }): { x: number; y: number } {
-  return { x: view.left + view.x + point.xPx * view.scale, y: view.top + view.y + point.yPx * view.scale };
-}
 
 /** Counts what the volunteer does: one per click or key press, one per character typed. */
 class Effort {

@@ -13,6 +13,7 @@ import { pixelFromReading } from '../../fixtures/generator/sheet-layout';
 import type { RunningServer } from '../../server/server';
 import { apiCall, tokenFor } from '../helpers/api-client';
 import { startE2eServer } from '../helpers/e2e-server';
+import { readStageView, toScreen } from '../helpers/stage-view';
 import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import { chooseOption, launchChromium, signIn, signOut, type BrowserSession } from '../helpers/browser';
 
@@ -20,26 +21,6 @@ const CHART_START = '2026-04-06T00:00:00Z';
 const HOUR_MS = 3_600_000;
 
 jest.setTimeout(240_000);
-
-interface StageView {
-  left: number;
-  top: number;
-  scale: number;
-  x: number;
-  y: number;
-}
-
-async function readStageView(page: Page): Promise<StageView> {
-  const stage = page.getByTestId('scan-stage');
-  const box = await stage.boundingBox();
-  if (!box) throw new Error('scan-stage is not visible');
-  const read = async (name: string) => Number(await stage.getAttribute(name));
-  return { left: box.x, top: box.y, scale: await read('data-view-scale'), x: await read('data-view-x'), y: await read('data-view-y') };
-}
-
-function toScreen(view: StageView, point: { xPx: number; yPx: number }): { x: number; y: number } {
-  return { x: view.left + view.x + point.xPx * view.scale, y: view.top + view.y + point.yPx * view.scale };
-}
 
 function parseCsv(text: string): string[][] {
   return text.trim().split('\n').map((line) => line.split(','));
