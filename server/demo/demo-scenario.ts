@@ -1,6 +1,7 @@
 import type { Role } from '@shared/api/roles';
 import type { StationInput } from '@shared/api/stations';
 import type { ChartForm } from '@shared/domain/chart-form';
+import { GENERATED_DAILY_FORM } from '../../fixtures/generator/daily-form';
 import { GENERATED_WEEKLY_FORM } from '../../fixtures/generator/weekly-form';
 
 /** Password of every demo account (invented scenario; never use outside a demo). */
@@ -45,20 +46,5 @@ export const DEMO_STATIONS: StationInput[] = [
 /** Used when the generated sample's own chart form is not there: the geometry the generator draws. */
 export const DEMO_WEEKLY_FORM_FALLBACK: ChartForm = { ...GENERATED_WEEKLY_FORM, name: 'Weekly 950–1050 hPa' };
 
-/** An invented daily form: one turn in 26 h (a day plus overlap for late changes), 15-minute arcs. */
-export const DEMO_DAILY_FORM: ChartForm = {
-  name: 'Daily 950–1050 hPa',
-  pressureUnit: 'hPa',
-  pressureMin: 950,
-  pressureMax: 1050,
-  drumHours: 26,
-  mmPerHour: 8,
-  mmPerUnit: 0.9,
-  penArmRadiusMm: 150,
-  pivotPressure: null,
-  arcSide: 1,
-  gridPressureStep: 1,
-  labelPressureStep: 10,
-  gridHoursStep: 0.25,
-  labelHoursStep: 2,
-};
+/** An invented daily form: one turn in 26 h (a day plus overlap for late changes), 15-minute arcs; the generator draws it. */
+export const DEMO_DAILY_FORM: ChartForm = { ...GENERATED_DAILY_FORM, name: 'Daily 950–1050 hPa' };
