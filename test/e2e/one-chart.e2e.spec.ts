@@ -109,8 +109,11 @@ describe('one chart from upload to station series', () => {
         }
       }
       await expectCount(page, 'pin-row', 4);
-      view = await readStageView(page);
       await page.getByTestId('mode-ink').click();
+      await page.getByTestId('knot-count').waitFor();
+      // Read the view after the Ink step is open: the step's panel can move the stage, and clicks read before would miss.
+      await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
+      view = await readStageView(page);
       if ((await page.getByTestId('knot-count').getAttribute('data-count')) === '0') {
         for (const hours of knotHours) {
           const at = toScreen(view, pixelFromReading(chart.layout, { hours, pressure: chart.scene.story.pressureHpaAt(hours) }));
