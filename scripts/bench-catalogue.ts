@@ -4,20 +4,14 @@
  * (median of repeated warm calls) and PostgreSQL's EXPLAIN ANALYZE execution time of its queries.
  * Bar: a filtered catalogue page under 50 ms of server time. `-- --scans N` loads N instead.
  */
-import { mkdtempSync, rmSync, chmodSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { CompiledQuery, sql, type Compilable } from 'kysely';
+import { sql } from 'kysely';
 import type { PageQuery } from '@shared/api/paging';
 import type { ScanSortKey } from '@shared/api/scans';
-import { createDb } from '../server/db/create-db';
 import type { Db } from '../server/db/database';
-import { migrateToLatest } from '../server/db/migrate';
 import type { ScanFilter } from '../server/scans/scan-filters';
 import { buildCatalogueQueries, buildStatusCountQuery, withLongestSpan } from '../server/scans/scans.repository';
 import * as scansService from '../server/scans/scans.service';
-import { findFreePort } from './lib/free-port';
-import { LocalPostgres } from './lib/local-postgres';
+import { explainMs, explainText, percentile, printTable, runBenchmark, timeRuns, withBenchDatabase } from './lib/bench-kit';
 
 const BAR_MS = 50;
 const RUNS = 15;
@@ -88,35 +82,8 @@ export async function loadScans(db: Db, scanCount: number): Promise<{ stationIds
   return { stationIds: await ids('station'), instrumentIds, batchIds: await ids('intake_batch'), chartFormIds };
 }
 
-/** PostgreSQL's plan of a query, as text, for mixes over the bar. */
-async function explainText(db: Db, query: Compilable): Promise<string> {
-  const compiled = query.compile();
-  const result = await db.executeQuery<{ 'QUERY PLAN': string }>(CompiledQuery.raw(`explain (analyze) ${compiled.sql}`, [...compiled.parameters]));
-  return result.rows.map((row) => row['QUERY PLAN']).join('\n');
-}
-
-async function explainMs(db: Db, query: Compilable): Promise<number> {
-  const compiled = query.compile();
-  const result = await db.executeQuery<{ 'QUERY PLAN': { 'Execution Time': number }[] }>(
-    CompiledQuery.raw(`explain (analyze, format json) ${compiled.sql}`, [...compiled.parameters]),
-  );
-  return result.rows[0]['QUERY PLAN'][0]['Execution Time'];
-}
-
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.floor(sorted.length / 2)];
-}
-
-async function timeMs(run: () => Promise<unknown>): Promise<number> {
-  for (let i = 0; i < WARM_UPS; i++) await run();
-  const times: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    const started = process.hrtime.bigint();
-    await run();
-    times.push(Number(process.hrtime.bigint() - started) / 1e6);
-  }
-  return median(times);
+async function medianMs(run: () => Promise<unknown>): Promise<number> {
+  return percentile(await timeRuns(run, WARM_UPS, RUNS), 0.5);
 }
 
 interface Mix {
@@ -128,15 +95,7 @@ interface Mix {
 
 async function main(): Promise<void> {
   const scanCount = argValue('--scans', 100_000);
-  const workDir = mkdtempSync(join(tmpdir(), 'isallo-bench-catalogue-'));
-  chmodSync(workDir, 0o755);
-  const postgres = new LocalPostgres(join(workDir, 'pg'), await findFreePort());
-  let db: Db | undefined;
-  try {
-    await postgres.start();
-    await postgres.ensureDatabase('bench');
-    db = createDb(postgres.url('bench'), 4);
-    await migrateToLatest(db);
+  await withBenchDatabase('catalogue', async (db) => {
     const loadStarted = Date.now();
     const ids = await loadScans(db, scanCount);
     console.log(`Loaded ${scanCount} scans in ${((Date.now() - loadStarted) / 1000).toFixed(1)} s.\n`);
@@ -172,11 +131,11 @@ async function main(): Promise<void> {
       let explainedMs: number;
       let total: number;
       if (mix.isCounts) {
-        serverMs = await timeMs(() => scansService.countScansByStatus(db!, mix.filter));
+        serverMs = await medianMs(() => scansService.countScansByStatus(db, mix.filter));
         explainedMs = await explainMs(db, buildStatusCountQuery(db, explainedFilter));
         total = Object.values(await scansService.countScansByStatus(db, mix.filter)).reduce((a, b) => a + b, 0);
       } else {
-        serverMs = await timeMs(() => scansService.listScans(db!, mix.filter, query));
+        serverMs = await medianMs(() => scansService.listScans(db, mix.filter, query));
         const { ids: rowsQuery, count } = buildCatalogueQueries(db, explainedFilter, query);
         explainedMs = (await explainMs(db, rowsQuery)) + (await explainMs(db, count));
         total = (await scansService.listScans(db, mix.filter, query)).total;
@@ -188,26 +147,13 @@ async function main(): Promise<void> {
       }
     }
     const header = ['filter mix', 'matches', 'server ms (median)', 'EXPLAIN ANALYZE ms', `< ${BAR_MS} ms`];
-    const widths = header.map((title, i) => Math.max(title.length, ...rows.map((row) => row[i].length)));
-    const line = (cells: string[]) => cells.map((cell, i) => (i === 0 ? cell.padEnd(widths[i]) : cell.padStart(widths[i]))).join('  ');
-    console.log(line(header));
-    console.log(widths.map((width) => '-'.repeat(width)).join('  '));
-    for (const row of rows) console.log(line(row));
+    printTable(header, rows);
     console.log(`\n${scanCount} scans; page size 25; server time = the service call (${RUNS} warm runs, median), EXPLAIN ANALYZE = page-ids query + count query.`);
     if (plans.length > 0) console.log(`\nPlans of the mixes over the bar:\n${plans.join('\n\n')}`);
     const worst = Math.max(...rows.map((row) => Number(row[2])));
     console.log(worst < BAR_MS ? `All mixes under the ${BAR_MS} ms bar (slowest ${worst.toFixed(1)} ms).` : `Slowest mix ${worst.toFixed(1)} ms: over the ${BAR_MS} ms bar.`);
     process.exitCode = worst < BAR_MS ? 0 : 1;
-  } finally {
-    await db?.destroy();
-    await postgres.remove();
-    rmSync(workDir, { recursive: true, force: true });
-  }
-}
-
-if (require.main === module) {
-  main().catch((error: unknown) => {
-    console.error(error instanceof Error ? error.stack : error);
-    process.exit(1);
   });
 }
+
+if (require.main === module) runBenchmark(main);

@@ -5,20 +5,14 @@
  * p95 of repeated warm calls, and PostgreSQL's EXPLAIN ANALYZE execution time of the query.
  * Bars: one year at the hourly step p95 < 30 ms; 100 years at the daily step p95 < 150 ms.
  */
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { CompiledQuery, sql } from 'kysely';
+import { sql } from 'kysely';
 import type { SeriesStep } from '@shared/api/series-query';
-import { createDb } from '../server/db/create-db';
 import type { Db } from '../server/db/database';
-import { migrateToLatest } from '../server/db/migrate';
 import type { SeriesQuery } from '../server/series/parse-series-query';
 import { buildPendingSeries } from '../server/series/series-build';
 import { bucketsStatement } from '../server/series/series-read.repository';
 import * as seriesService from '../server/series/series.service';
-import { findFreePort } from './lib/free-port';
-import { LocalPostgres } from './lib/local-postgres';
+import { explainMs, percentile, printTable, runBenchmark, timeRuns, withBenchDatabase } from './lib/bench-kit';
 
 const RUNS = 30;
 const WARM_UPS = 3;
@@ -72,27 +66,9 @@ async function loadSeries(db: Db): Promise<string> {
   return stationId;
 }
 
-function percentile(values: number[], share: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  return sorted[Math.min(sorted.length - 1, Math.ceil(share * sorted.length) - 1)];
-}
-
 async function timeP95(run: () => Promise<unknown>): Promise<{ p95: number; median: number }> {
-  for (let i = 0; i < WARM_UPS; i++) await run();
-  const times: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    const started = process.hrtime.bigint();
-    await run();
-    times.push(Number(process.hrtime.bigint() - started) / 1e6);
-  }
+  const times = await timeRuns(run, WARM_UPS, RUNS);
   return { p95: percentile(times, 0.95), median: percentile(times, 0.5) };
-}
-
-async function explainMs(db: Db, compiled: CompiledQuery): Promise<number> {
-  const result = await db.executeQuery<{ 'QUERY PLAN': { 'Execution Time': number }[] }>(
-    CompiledQuery.raw(`explain (analyze, format json) ${compiled.sql}`, [...compiled.parameters]),
-  );
-  return result.rows[0]['QUERY PLAN'][0]['Execution Time'];
 }
 
 interface Case {
@@ -104,15 +80,7 @@ interface Case {
 }
 
 async function main(): Promise<void> {
-  const workDir = mkdtempSync(join(tmpdir(), 'isallo-bench-series-'));
-  chmodSync(workDir, 0o755);
-  const postgres = new LocalPostgres(join(workDir, 'pg'), await findFreePort());
-  let db: Db | undefined;
-  try {
-    await postgres.start();
-    await postgres.ensureDatabase('bench');
-    db = createDb(postgres.url('bench'), 4);
-    await migrateToLatest(db);
+  await withBenchDatabase('series', async (db) => {
     let started = Date.now();
     const stationId = await loadSeries(db);
     const { count } = await db.selectFrom('series_point').select((eb) => eb.fn.countAll<number>().as('count')).executeTakeFirstOrThrow();
@@ -142,7 +110,7 @@ async function main(): Promise<void> {
         format: 'json',
         withProvenance: false,
       };
-      const { p95, median } = await timeP95(() => seriesService.queryStationSeriesJson(db!, station, query));
+      const { p95, median } = await timeP95(() => seriesService.queryStationSeriesJson(db, station, query));
       const series = await seriesService.queryStationSeries(db, station, query);
       const explained = await explainMs(db, bucketsStatement({ stationId, fromMs: query.fromMs, toMs: query.toMs, flags: null }, one.step).compile(db));
       const isUnder = one.barMs === null || p95 < one.barMs;
@@ -150,24 +118,12 @@ async function main(): Promise<void> {
       rows.push([one.name, series.points.length.toLocaleString('en'), median.toFixed(1), p95.toFixed(1), explained.toFixed(1), one.barMs === null ? '–' : `${isUnder ? 'yes' : 'NO'} (< ${one.barMs})`]);
     }
     const header = ['query', 'buckets', 'server ms (median)', 'server ms (p95)', 'EXPLAIN ANALYZE ms', 'bar'];
-    const widths = header.map((title, i) => Math.max(title.length, ...rows.map((row) => row[i].length)));
-    const line = (cells: string[]) => cells.map((cell, i) => (i === 0 ? cell.padEnd(widths[i]) : cell.padStart(widths[i]))).join('  ');
-    console.log(`\n${line(header)}`);
-    console.log(widths.map((width) => '-'.repeat(width)).join('  '));
-    for (const row of rows) console.log(line(row));
+    console.log('');
+    printTable(header, rows);
     console.log(`\nserver time = the service call that writes the JSON answer (${RUNS} warm runs); EXPLAIN ANALYZE = the bucket query.`);
     console.log(isOver ? 'A query is over its bar.' : 'Every query is under its bar.');
     process.exitCode = isOver ? 1 : 0;
-  } finally {
-    await db?.destroy();
-    await postgres.stop();
-    rmSync(workDir, { recursive: true, force: true });
-  }
-}
-
-if (require.main === module) {
-  main().catch((error: unknown) => {
-    console.error(error instanceof Error ? error.stack : error);
-    process.exit(1);
   });
 }
+
+if (require.main === module) runBenchmark(main);
