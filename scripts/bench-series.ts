@@ -37,18 +37,18 @@ async function loadSeries(db: Db): Promise<string> {
     values ('Bench weekly', 'hPa', 950, 1050, 168, 1.5, 0.9, 150, 1, 10, 2, 24)`.execute(db);
   const hours = YEARS * 8760;
   const weeks = Math.ceil(hours / 168);
-  // One scan and one handed-in ink line per week.
+  // One scan and one approved ink line per week: only approved lines of live scans make a station series.
   await sql`
     insert into scan (sha256, storage_key, media_type, size_bytes, width_px, height_px, station_id, chart_form_id, chart_start, status, original_name, uploaded_by, derivative_state)
     select lpad(to_hex(w), 64, '0'), 'masters/' || w || '.png', 'image/png', 1, 7000, 2600, ${stationId},
-      (select id from chart_form limit 1), timestamptz '${sql.raw(`${FIRST_YEAR}`)}-01-01 00:00Z' + make_interval(hours => w * 168), 'traced', 'w' || w || '.png', ${personId}, 'ready'
+      (select id from chart_form limit 1), timestamptz '${sql.raw(`${FIRST_YEAR}`)}-01-01 00:00Z' + make_interval(hours => w * 168), 'approved', 'w' || w || '.png', ${personId}, 'ready'
     from generate_series(0, ${weeks - 1}) w`.execute(db);
   await sql`
     insert into pin_set (scan_id, created_by, pins, model, rms_hpa, rms_minutes, fit)
     select id, ${personId}, '[]', 'affine', 0, 0, '{}' from scan`.execute(db);
   await sql`
     insert into ink_line (scan_id, pin_set_id, author_id, status, knots)
-    select s.id, p.id, ${personId}, 'handed_in', '[]' from scan s join pin_set p on p.scan_id = s.id`.execute(db);
+    select s.id, p.id, ${personId}, 'approved', '[]' from scan s join pin_set p on p.scan_id = s.id`.execute(db);
   // A seasonal wave, a synoptic wave and a little noise; every 97th point interpolated, every 1009th suspect.
   await sql`
     insert into series_point (ink_line_id, station_id, time, pressure_hpa, uncertainty_hpa, flag)
@@ -88,6 +88,8 @@ async function main(): Promise<void> {
     started = Date.now();
     const built = await buildPendingSeries(db, stationId);
     console.log(`Built the station series (${built?.pointCount.toLocaleString('en')} points, version ${built?.version}) in ${((Date.now() - started) / 1000).toFixed(1)} s.`);
+    // A series that lost its points times empty queries: refuse to print figures for it.
+    if (built?.pointCount !== Number(count)) throw new Error(`The built series holds ${built?.pointCount ?? 0} points, not the ${count} loaded: the figures would time an empty series.`);
     await sql`vacuum analyze`.execute(db);
 
     const cases: Case[] = [

@@ -5,13 +5,13 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
-import { Router, RouterLink } from '@angular/router';
+import { RouterLink } from '@angular/router';
 import { PASSWORD_MIN_LENGTH } from '@shared/api/auth';
 import type { InvitationPreview } from '@shared/api/people';
 
-import { AuthSession } from '../../core/auth/auth-session';
 import { AccountApi } from '../account-api';
-import { problemText } from '../problem-text';
+import { problemText } from '../../core/http/problem-text';
+import { SessionSubmission } from '../../core/auth/session-submission';
 
 /** The page an invitation mail links to: the invitee chooses a name and password and is signed in. */
 @Component({
@@ -23,16 +23,15 @@ import { problemText } from '../problem-text';
 })
 export class AcceptInvitationPage implements OnInit {
   private readonly api = inject(AccountApi);
-  private readonly session = inject(AuthSession);
-  private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
 
   /** The link's secret, from the route. */
   readonly token = input.required<string>();
   protected readonly minLength = PASSWORD_MIN_LENGTH;
   protected readonly invitation = signal<InvitationPreview | null>(null);
-  protected readonly failure = signal<string | null>(null);
-  protected readonly isSending = signal(false);
+  private readonly submission = new SessionSubmission();
+  protected readonly failure = this.submission.failure;
+  protected readonly isSending = this.submission.isSending;
   protected readonly form = inject(NonNullableFormBuilder).group({
     displayName: ['', [Validators.required, Validators.maxLength(100)]],
     password: ['', [Validators.required, Validators.minLength(PASSWORD_MIN_LENGTH)]],
@@ -49,24 +48,6 @@ export class AcceptInvitationPage implements OnInit {
   }
 
   protected accept(): void {
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      return;
-    }
-    this.isSending.set(true);
-    this.failure.set(null);
-    this.api
-      .acceptInvitation(this.token(), this.form.getRawValue())
-      .pipe(takeUntilDestroyed(this.destroyRef))
-      .subscribe({
-        next: (response) => {
-          this.session.start(response);
-          void this.router.navigateByUrl('/');
-        },
-        error: (error: unknown) => {
-          this.isSending.set(false);
-          this.failure.set(problemText(error, 'The account could not be made. Try again.'));
-        },
-      });
+    this.submission.submit(this.form, () => this.api.acceptInvitation(this.token(), this.form.getRawValue()), 'The account could not be made. Try again.');
   }
 }

@@ -9,7 +9,7 @@ import { PASSWORD_MIN_LENGTH } from '@shared/api/auth';
 
 import { AuthSession } from '../../core/auth/auth-session';
 import { AccountApi } from '../account-api';
-import { problemText } from '../problem-text';
+import { problemText } from '../../core/http/problem-text';
 
 /** The signed-in person's own account: name, password, and signing out on every device. */
 @Component({

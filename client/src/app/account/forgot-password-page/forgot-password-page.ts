@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
 
 import { AccountApi } from '../account-api';
-import { problemText } from '../problem-text';
+import { problemText } from '../../core/http/problem-text';
 
 /** Asks for a reset link by mail; the answer is the same whether or not the address has an account. */
 @Component({

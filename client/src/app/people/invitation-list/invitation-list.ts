@@ -7,7 +7,7 @@ import { MatTableModule } from '@angular/material/table';
 import { DEFAULT_PAGE_SIZE } from '@shared/api/paging';
 import { INVITATION_SORT_KEYS, type InvitationSortKey, type InvitationSummary } from '@shared/api/people';
 
-import { problemText } from '../../account/problem-text';
+import { problemText } from '../../core/http/problem-text';
 import { createPagedList } from '../../shared/paged-list/paged-list';
 import { PeopleApi } from '../people-api';
 

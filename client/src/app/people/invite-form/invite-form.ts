@@ -7,7 +7,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { ROLES, type Role } from '@shared/api/roles';
 
-import { problemText } from '../../account/problem-text';
+import { problemText } from '../../core/http/problem-text';
 import { PeopleApi } from '../people-api';
 
 /** The admin invites an address with roles; the server mails the link. */

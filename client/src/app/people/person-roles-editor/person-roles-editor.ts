@@ -6,7 +6,7 @@ import { MatSelectModule } from '@angular/material/select';
 import type { PersonSummary } from '@shared/api/people';
 import { ROLES, type Role } from '@shared/api/roles';
 
-import { problemText } from '../../account/problem-text';
+import { problemText } from '../../core/http/problem-text';
 import { PeopleApi } from '../people-api';
 
 /** One person's roles and enabled state, changed in place by the admin; a change ends that person's sessions. */

@@ -1,4 +1,4 @@
-import { ApiError } from '../core/http/api-error';
+import { ApiError } from './api-error';
 
 /** The message to show for a failed call: the server's words and its field problems, or a fallback. */
 export function problemText(error: unknown, fallback: string): string {
