@@ -28,6 +28,7 @@ import * as addPersonVersion from './2026_12_04_1310_add_person_version';
 import * as createInvitation from './2026_12_04_1320_create_invitation';
 import * as createPasswordReset from './2026_12_04_1330_create_password_reset';
 import * as createPeopleChange from './2026_12_04_1340_create_people_change';
+import * as addSeriesBucketJson from './2026_12_05_1130_add_series_bucket_json';
 import * as createInkLineReview from './2026_12_04_0900_create_ink_line_review';
 import * as createStationTracing from './2026_12_04_0910_create_station_tracing';
 import * as createTracePriority from './2026_12_04_0920_create_trace_priority';
@@ -73,6 +74,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_04_1320_create_invitation': createInvitation,
   '2026_12_04_1330_create_password_reset': createPasswordReset,
   '2026_12_04_1340_create_people_change': createPeopleChange,
+  '2026_12_05_1130_add_series_bucket_json': addSeriesBucketJson,
   '2026_12_04_0900_create_ink_line_review': createInkLineReview,
   '2026_12_04_0910_create_station_tracing': createStationTracing,
   '2026_12_04_0920_create_trace_priority': createTracePriority,

@@ -20,7 +20,7 @@ const YEARS = 100;
 const FIRST_YEAR = 1900;
 
 /** One station, weekly scans and ink lines, and an hourly point for every hour of YEARS years, in SQL. */
-async function loadSeries(db: Db): Promise<string> {
+export async function loadSeries(db: Db): Promise<string> {
   const { id: personId } = await db
     .insertInto('person')
     .values({ email: 'bench@isallo.test', display_name: 'Bench Volunteer', password_hash: 'x' } as never)

@@ -2,6 +2,7 @@ import { sql, type RawBuilder } from 'kysely';
 import type { SeriesFlag } from '@shared/api/series';
 import type { PointProvenance, RawSeriesPoint, SeriesAggregate, SeriesBucket, SeriesStep } from '@shared/api/series-query';
 import type { DbOrTrx } from '../db/database';
+import { BUCKET_JSON_TAIL } from './bucket-json';
 
 /** One station over an inclusive range, with the flags its points may carry (null: every flag). */
 export interface SeriesReadQuery {
@@ -19,6 +20,8 @@ type BucketRow = {
   point_count: number;
   flagged_count: number;
   mean_uncertainty_hpa: number | null;
+  /** The bucket's answer JSON less its pressureHpa: stored for whole hours and days, written here otherwise. */
+  bucket_json: string;
 };
 
 const EPOCH = sql`timestamptz '1970-01-01 00:00:00+00'`;
@@ -69,12 +72,17 @@ export async function readRawPoints(db: DbOrTrx, query: SeriesReadQuery, withPro
 
 /** SQL that groups the materialized points (optionally only some flags) into buckets of the step. */
 function bucketsFromPoints(query: SeriesReadQuery, bucket: RawBuilder<unknown>): RawBuilder<BucketRow> {
-  return sql<BucketRow>`
+  return withBucketJson(sql`
     select ${bucket} as bucket_start, avg(pressure_hpa) as mean_hpa, min(pressure_hpa) as min_hpa, max(pressure_hpa) as max_hpa,
       count(*)::int as point_count, (count(*) filter (where flag <> 'ok'))::int as flagged_count, avg(uncertainty_hpa) as mean_uncertainty_hpa
     from station_series_point
     where station_id = ${query.stationId} and time >= ${new Date(query.fromMs)} and time <= ${new Date(query.toMs)} and ${flagCondition(query.flags)}
-    group by 1`;
+    group by 1`);
+}
+
+/** Buckets computed at query time, with the JSON text that stored buckets keep. */
+function withBucketJson(buckets: RawBuilder<unknown>): RawBuilder<BucketRow> {
+  return sql<BucketRow>`select computed.*, ${BUCKET_JSON_TAIL} as bucket_json from (${buckets}) computed`;
 }
 
 /** Bucket sizes of the steps; a month is a calendar month in UTC. */
@@ -101,14 +109,15 @@ export function bucketsStatement(query: SeriesReadQuery, step: Exclude<SeriesSte
   if (query.flags === null && (step === 'hourly' || step === 'daily')) {
     statement = sql<BucketRow>`select * from (${storedBuckets(query, step)}) b order by bucket_start`;
   } else if (query.flags === null && step === 'monthly') {
-    statement = sql<BucketRow>`
+    const months = withBucketJson(sql`
       select (date_trunc('month', bucket_start at time zone 'UTC') at time zone 'UTC') as bucket_start,
         sum(mean_hpa * point_count) / sum(point_count) as mean_hpa, min(min_hpa) as min_hpa, max(max_hpa) as max_hpa,
         sum(point_count)::int as point_count, sum(flagged_count)::int as flagged_count,
         sum(mean_uncertainty_hpa * point_count) filter (where mean_uncertainty_hpa is not null)
           / nullif(sum(point_count) filter (where mean_uncertainty_hpa is not null), 0) as mean_uncertainty_hpa
       from (${storedBuckets(query, 'daily')}) days
-      group by 1 order by 1`;
+      group by 1`);
+    statement = sql<BucketRow>`select * from (${months}) m order by bucket_start`;
   } else {
     statement = sql<BucketRow>`select * from (${bucketsFromPoints(query, POINT_BUCKETS[step])}) b order by bucket_start`;
   }
@@ -126,7 +135,7 @@ function storedBuckets(query: SeriesReadQuery, step: 'hourly' | 'daily'): RawBui
   const endWhole = Math.floor((query.toMs + 1) / bucketMs) * bucketMs;
   if (endWhole <= firstWhole) return bucketsFromPoints(query, POINT_BUCKETS[step]);
   const stored = sql<BucketRow>`
-    select bucket_start, mean_hpa, min_hpa, max_hpa, point_count, flagged_count, mean_uncertainty_hpa
+    select bucket_start, mean_hpa, min_hpa, max_hpa, point_count, flagged_count, mean_uncertainty_hpa, bucket_json
     from ${sql.table(table)} where station_id = ${query.stationId} and bucket_start >= ${new Date(firstWhole)} and bucket_start < ${new Date(endWhole)}`;
   const parts = [stored];
   if (firstWhole > query.fromMs) parts.unshift(bucketsFromPoints({ ...query, toMs: firstWhole - 1 }, POINT_BUCKETS[step]));
@@ -166,17 +175,13 @@ export async function* streamRawPoints(db: DbOrTrx, query: SeriesReadQuery): Asy
 const ISO_UTC = `'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'`;
 
 /**
- * The buckets of readBuckets as one JSON array text built by PostgreSQL: a century of days is one value
- * instead of 36 500 parsed rows and dates (float8 goes out in its shortest exact form, as JSON.stringify writes it).
+ * The buckets of readBuckets as one JSON array text joined by PostgreSQL from each bucket's JSON (bucket-json.ts):
+ * a century of days is one value instead of 36 500 parsed rows and dates.
  */
 export async function readBucketsJson(db: DbOrTrx, query: SeriesReadQuery, step: Exclude<SeriesStep, 'raw'>, aggregate: SeriesAggregate): Promise<string> {
   const chosen = aggregate === 'min' ? sql`min_hpa` : aggregate === 'max' ? sql`max_hpa` : sql`mean_hpa`;
   const { rows } = await sql<{ points: string }>`
-    select coalesce(json_agg(json_build_object(
-      'time', to_char(bucket_start at time zone 'UTC', ${sql.raw(ISO_UTC)}),
-      'pressureHpa', ${chosen}, 'meanHpa', mean_hpa, 'minHpa', min_hpa, 'maxHpa', max_hpa, 'count', point_count,
-      'flaggedShare', case when point_count = 0 then 0 else flagged_count::float8 / point_count end,
-      'uncertaintyHpa', mean_uncertainty_hpa) order by bucket_start), '[]')::text as points
+    select coalesce('[' || string_agg(concat('{"pressureHpa":', ${chosen}, ',', bucket_json), ',' order by bucket_start) || ']', '[]') as points
     from (${bucketsStatement(query, step)}) b`.execute(db);
   return rows[0].points;
 }

@@ -1,6 +1,7 @@
 import { sql } from 'kysely';
 import type { SeriesPoint } from '@shared/api/series';
 import type { DbOrTrx } from '../db/database';
+import { BUCKET_JSON_TAIL } from './bucket-json';
 
 /** A time span, inclusive at both ends, UTC epoch ms. */
 export interface TimeSpan {
@@ -160,11 +161,14 @@ export async function rebuildAggregates(trx: DbOrTrx, stationId: string, span: T
     const toExclusive = new Date((Math.floor(span.toMs / bucket.bucketMs) + 1) * bucket.bucketMs);
     await sql`delete from ${sql.table(bucket.table)} where station_id = ${stationId} and bucket_start >= ${from} and bucket_start < ${toExclusive}`.execute(trx);
     await sql`
-      insert into ${sql.table(bucket.table)} (station_id, bucket_start, mean_hpa, min_hpa, max_hpa, point_count, flagged_count, mean_uncertainty_hpa)
-      select station_id, date_bin(${bucket.width}, time, ${EPOCH}), avg(pressure_hpa), min(pressure_hpa), max(pressure_hpa),
-             count(*), count(*) filter (where flag <> 'ok'), avg(uncertainty_hpa)
-      from station_series_point
-      where station_id = ${stationId} and time >= ${from} and time < ${toExclusive}
-      group by 1, 2`.execute(trx);
+      insert into ${sql.table(bucket.table)} (station_id, bucket_start, mean_hpa, min_hpa, max_hpa, point_count, flagged_count, mean_uncertainty_hpa, bucket_json)
+      select station_id, bucket_start, mean_hpa, min_hpa, max_hpa, point_count, flagged_count, mean_uncertainty_hpa, ${BUCKET_JSON_TAIL}
+      from (
+        select station_id, date_bin(${bucket.width}, time, ${EPOCH}) as bucket_start, avg(pressure_hpa) as mean_hpa,
+               min(pressure_hpa) as min_hpa, max(pressure_hpa) as max_hpa, count(*)::int as point_count,
+               (count(*) filter (where flag <> 'ok'))::int as flagged_count, avg(uncertainty_hpa) as mean_uncertainty_hpa
+        from station_series_point
+        where station_id = ${stationId} and time >= ${from} and time < ${toExclusive}
+        group by 1, 2) grouped`.execute(trx);
   }
 }

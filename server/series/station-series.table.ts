@@ -25,6 +25,8 @@ export interface StationSeriesAggregateTable {
   flagged_count: number;
   /** Mean of the points' standard uncertainties; null when none is known. */
   mean_uncertainty_hpa: number | null;
+  /** The bucket's answer JSON less its pressureHpa (bucket-json.ts), written with the aggregates. */
+  bucket_json: string;
 }
 
 /** Per station: the series version, when it was last built, and the last series_change row the build has read. */

@@ -6,6 +6,7 @@ import { SERIES_FLAG_MEANINGS } from '@shared/api/series-flags';
 import { recordSeriesChanges } from '../../server/series/series-change';
 import { buildAllPendingSeries } from '../../server/series/series-build';
 import { FILL_DOUBLE } from '../../server/series/series-netcdf';
+import { rebuildAggregates } from '../../server/series/station-series.repository';
 import { createChartForm, createInkLineWithPoints, createPerson, createScanRow, createStation, type TestPerson } from '../helpers/factories';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 
@@ -119,6 +120,29 @@ describe('series query: steps, aggregates, flags and formats', () => {
     expect(response.body.stations[0].points).toEqual([
       { time: '2026-03-01T00:00:00.000Z', pressureHpa: 1017.5, meanHpa: 1017.5, minHpa: 1012, maxHpa: 1023, count: 12, flaggedShare: 0, uncertaintyHpa: null },
     ]);
+  });
+
+  it('when every flag is named, then the buckets grouped from the points equal the stored buckets, uncertainty included', async () => {
+    // Naming every flag takes the path that groups the points at query time; no flag filter reads the stored hours
+    // and days with their stored JSON (server/series/bucket-json.ts). Both must give the same answer.
+    const pointTime = new Date(POINTS[2].time);
+    const day = { fromMs: Date.parse('2026-03-01T00:00:00Z'), toMs: Date.parse('2026-03-01T23:59:59Z') };
+    await context.db.updateTable('station_series_point').set({ uncertainty_hpa: 0.3 }).where('time', '=', pointTime).execute();
+    await rebuildAggregates(context.db, stationId, day);
+    try {
+      for (const step of ['hourly', 'daily', 'monthly']) {
+        const stored = await query({ stationId, from: '2026-03-01', to: '2026-03-02', step });
+        const grouped = await query({ stationId, from: '2026-03-01', to: '2026-03-02', step, flags: SERIES_FLAGS.join(',') });
+
+        expect(stored.status).toBe(200);
+        expect(grouped.body.stations[0].points).toEqual(stored.body.stations[0].points);
+      }
+      const hourly = await query({ stationId, from: '2026-03-01', to: '2026-03-01', step: 'hourly' });
+      expect(hourly.body.stations[0].points[2]).toMatchObject({ time: POINTS[2].time, uncertaintyHpa: 0.3 });
+    } finally {
+      await context.db.updateTable('station_series_point').set({ uncertainty_hpa: null }).where('time', '=', pointTime).execute();
+      await rebuildAggregates(context.db, stationId, day);
+    }
   });
 
   it('when hourly and 10min steps are asked for, then each point is its own bucket', async () => {
