@@ -10,7 +10,7 @@ import type { SeriesStep } from '@shared/api/series-query';
 import type { Db } from '../server/db/database';
 import type { SeriesQuery } from '../server/series/parse-series-query';
 import { buildPendingSeries } from '../server/series/series-build';
-import { bucketsStatement } from '../server/series/series-read.repository';
+import { bucketsJsonStatement } from '../server/series/series-read.repository';
 import * as seriesService from '../server/series/series.service';
 import { explainMs, percentile, printTable, runBenchmark, timeRuns, withBenchDatabase } from './lib/bench-kit';
 
@@ -114,7 +114,7 @@ async function main(): Promise<void> {
       };
       const { p95, median } = await timeP95(() => seriesService.queryStationSeriesJson(db, station, query));
       const series = await seriesService.queryStationSeries(db, station, query);
-      const explained = await explainMs(db, bucketsStatement({ stationId, fromMs: query.fromMs, toMs: query.toMs, flags: null }, one.step).compile(db));
+      const explained = await explainMs(db, bucketsJsonStatement({ stationId, fromMs: query.fromMs, toMs: query.toMs, flags: null }, one.step, 'mean').compile(db));
       const isUnder = one.barMs === null || p95 < one.barMs;
       if (!isUnder) isOver = true;
       rows.push([one.name, series.points.length.toLocaleString('en'), median.toFixed(1), p95.toFixed(1), explained.toFixed(1), one.barMs === null ? '–' : `${isUnder ? 'yes' : 'NO'} (< ${one.barMs})`]);
@@ -122,7 +122,7 @@ async function main(): Promise<void> {
     const header = ['query', 'buckets', 'server ms (median)', 'server ms (p95)', 'EXPLAIN ANALYZE ms', 'bar'];
     console.log('');
     printTable(header, rows);
-    console.log(`\nserver time = the service call that writes the JSON answer (${RUNS} warm runs); EXPLAIN ANALYZE = the bucket query.`);
+    console.log(`\nserver time = the service call that writes the JSON answer (${RUNS} warm runs); EXPLAIN ANALYZE = the query that writes the buckets' JSON.`);
     console.log(isOver ? 'A query is over its bar.' : 'Every query is under its bar.');
     process.exitCode = isOver ? 1 : 0;
   });

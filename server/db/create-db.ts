@@ -13,9 +13,18 @@ pg.types.setTypeParser(NUMERIC_OID, (value) => Number.parseFloat(value));
 // A calendar date (an instrument's installed_on) is a day, not an instant: keep it as YYYY-MM-DD, never a local-midnight Date.
 pg.types.setTypeParser(DATE_OID, (value) => value);
 
+/**
+ * Sort memory per connection. A century of daily buckets with their JSON text (about 6 MB) must sort in memory:
+ * at PostgreSQL's 4 MB default it spilled to disk and doubled the query time. Ten connections at 32 MB each
+ * stay far below the server's memory.
+ */
+const WORK_MEM = '32MB';
+
 /** Opens a pooled, typed Kysely handle; call `db.destroy()` to close the pool. */
 export function createDb(databaseUrl: string, maxConnections = 10): Kysely<Database> {
   return new Kysely<Database>({
-    dialect: new PostgresDialect({ pool: new pg.Pool({ connectionString: databaseUrl, max: maxConnections }) }),
+    dialect: new PostgresDialect({
+      pool: new pg.Pool({ connectionString: databaseUrl, max: maxConnections, options: `-c work_mem=${WORK_MEM}` }),
+    }),
   });
 }

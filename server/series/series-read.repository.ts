@@ -179,11 +179,16 @@ const ISO_UTC = `'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"'`;
  * a century of days is one value instead of 36 500 parsed rows and dates.
  */
 export async function readBucketsJson(db: DbOrTrx, query: SeriesReadQuery, step: Exclude<SeriesStep, 'raw'>, aggregate: SeriesAggregate): Promise<string> {
-  const chosen = aggregate === 'min' ? sql`min_hpa` : aggregate === 'max' ? sql`max_hpa` : sql`mean_hpa`;
-  const { rows } = await sql<{ points: string }>`
-    select coalesce('[' || string_agg(concat('{"pressureHpa":', ${chosen}, ',', bucket_json), ',' order by bucket_start) || ']', '[]') as points
-    from (${bucketsStatement(query, step)}) b`.execute(db);
+  const { rows } = await bucketsJsonStatement(query, step, aggregate).execute(db);
   return rows[0].points;
+}
+
+/** The SQL of readBucketsJson (the benchmark EXPLAINs it). */
+export function bucketsJsonStatement(query: SeriesReadQuery, step: Exclude<SeriesStep, 'raw'>, aggregate: SeriesAggregate): RawBuilder<{ points: string }> {
+  const chosen = aggregate === 'min' ? sql`min_hpa` : aggregate === 'max' ? sql`max_hpa` : sql`mean_hpa`;
+  return sql<{ points: string }>`
+    select coalesce('[' || string_agg(concat('{"pressureHpa":', ${chosen}, ',', bucket_json), ',' order by bucket_start) || ']', '[]') as points
+    from (${bucketsStatement(query, step)}) b`;
 }
 
 /** The raw points of readRawPoints (no provenance) as one JSON array text built by PostgreSQL. */
