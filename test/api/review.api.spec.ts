@@ -4,7 +4,7 @@ import type { ReviewDetail, ReviewRow } from '@shared/api/review';
 import type { Page } from '@shared/api/paging';
 import { createChartForm, createPerson, createScanRow, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
-import { syntheticDraft } from '../helpers/trace';
+import { syntheticDraft, syntheticPressureHpa } from '../helpers/trace';
 
 const CHART_START = '2026-03-02T00:00:00.000Z';
 
@@ -218,6 +218,37 @@ describe('review of handed-in ink lines', () => {
     expect(approvedOnes.body.total).toBe(0);
     expect(badFilter.status).toBe(400);
     expect(Object.keys(badFilter.body.error.details).sort()).toEqual(['from', 'state']);
+  });
+  it('when one line was handed in with chart on and check readings and another without, then each row says which corrections it applied and the review page has their residuals', async () => {
+    const hoursIso = (hours: number) => new Date(Date.parse(CHART_START) + hours * 3_600_000).toISOString();
+    const otherScan = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: archivist.id, chartStart: '2026-03-09T00:00:00Z' });
+    // Chart on written half an hour after the line's first knot: the clock ran 30 min slow. The barometer read
+    // 1.5 hPa below the line at the corrected times: the pen reads high (as in proof-checklist.spec.ts).
+    const corrected = {
+      ...syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 26),
+      chartOn: hoursIso(2.5),
+      checkReadings: [8, 20].map((hours) => ({ time: hoursIso(hours), pressureHpa: syntheticPressureHpa(hours - 0.5) - 1.5 })),
+    };
+    const first = await handIn(volunteer, corrected);
+    const second = await handIn(otherVolunteer, syntheticDraft(TEST_WEEKLY_FORM, '2026-03-09T00:00:00Z'), otherScan);
+
+    const list = await as(archivist, request(context.app).get(API.review));
+    const detail = await as(archivist, request(context.app).get(API.inkLineReview(first.body.inkLineId)));
+    const plain = await as(archivist, request(context.app).get(API.inkLineReview(second.body.inkLineId)));
+
+    expect(first.status).toBe(201);
+    const rows = new Map((list.body as Page<ReviewRow>).items.map((row) => [row.inkLineId, row.corrections]));
+    expect(rows.get(first.body.inkLineId)).toEqual({ clockMarkCount: 1, instrumentReadingCount: 2 });
+    expect(rows.get(second.body.inkLineId)).toEqual({ clockMarkCount: 0, instrumentReadingCount: 0 });
+    const { corrections, chartForm, registration } = detail.body as ReviewDetail;
+    expect(corrections.clock).toMatchObject({ method: 'offset', marks: [expect.objectContaining({ kind: 'chart_on', trueTime: hoursIso(2.5), isDropped: false })] });
+    expect(corrections.clock!.firstOffsetMinutes).toBeCloseTo(30, 0);
+    expect(corrections.instrument).toMatchObject({ method: 'drift', readings: [expect.objectContaining({ time: hoursIso(8) }), expect.objectContaining({ time: hoursIso(20) })] });
+    expect(corrections.instrument!.meanOffsetHpa).toBeCloseTo(-1.5, 1);
+    expect(corrections.checkReadingUses).toEqual(['used', 'used']);
+    expect(chartForm).toMatchObject({ drumHours: TEST_WEEKLY_FORM.drumHours, pressureMin: TEST_WEEKLY_FORM.pressureMin });
+    expect(registration.paperToPixel).toHaveLength(9);
+    expect((plain.body as ReviewDetail).corrections).toEqual({ clock: null, instrument: null, checkReadingUses: [] });
   });
 });
 
