@@ -187,7 +187,7 @@ describe('review of handed-in ink lines', () => {
     expect(await scanStatus()).toBe('traced');
   });
 
-  it('when the review list is asked for, then it pages handed-in lines oldest first with their figures, filtered by station and volunteer', async () => {
+  it('when the review list is asked for, then it pages handed-in lines oldest first with their figures, filtered by station, period and volunteer', async () => {
     const otherScan = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: archivist.id, chartStart: '2026-03-09T00:00:00Z' });
     const early = syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 10);
     const late = syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 20, 24);
@@ -197,6 +197,9 @@ describe('review of handed-in ink lines', () => {
     const all = await as(archivist, request(context.app).get(API.review)).query({ pageSize: 1 });
     const byVolunteer = await as(archivist, request(context.app).get(API.review)).query({ authorId: otherVolunteer.id });
     const approvedOnes = await as(archivist, request(context.app).get(API.review)).query({ state: 'approved' });
+    const byPeriod = await as(archivist, request(context.app).get(API.review)).query({ from: '2026-03-09', to: '2026-03-09' });
+    const byStation = await as(archivist, request(context.app).get(API.review)).query({ stationId });
+    const otherStation = await as(archivist, request(context.app).get(API.review)).query({ stationId: (await createStation(context.db)).id });
     const badFilter = await as(archivist, request(context.app).get(API.review)).query({ state: 'lost', from: 'soon' });
 
     const page = all.body as Page<ReviewRow>;
@@ -216,6 +219,9 @@ describe('review of handed-in ink lines', () => {
     expect(page.items[0].pinRmsHpa).toBeLessThan(0.01);
     expect(byVolunteer.body.items.map((row: ReviewRow) => row.inkLineId)).toEqual([second.body.inkLineId]);
     expect(approvedOnes.body.total).toBe(0);
+    expect(byPeriod.body.items.map((row: ReviewRow) => row.inkLineId)).toEqual([second.body.inkLineId]);
+    expect(byStation.body.total).toBe(2);
+    expect(otherStation.body.total).toBe(0);
     expect(badFilter.status).toBe(400);
     expect(Object.keys(badFilter.body.error.details).sort()).toEqual(['from', 'state']);
   });
