@@ -19,5 +19,6 @@ describe('clockInWords and instrumentInWords', () => {
   it('when the barometer reads below the pen and the pen drifts up, then the instrument is said high and drifting +', () => {
     expect(instrumentInWords({ meanOffsetHpa: -0.8, penDriftHpaPerWeek: 0.4 })).toBe('instrument 0.8 hPa high, drifting +0.4 hPa a week');
     expect(instrumentInWords({ meanOffsetHpa: 0.3, penDriftHpaPerWeek: null })).toBe('instrument 0.3 hPa low');
+    expect(instrumentInWords({ meanOffsetHpa: -0.01, penDriftHpaPerWeek: 0 })).toBe('instrument reads true, steady');
   });
 });

@@ -51,7 +51,8 @@ export function clockInWords(clock: ClockWordsInput): string {
 /** The instrument correction in plain words: how far off on average, and the drift over the readings. */
 export function instrumentInWords(instrument: InstrumentWordsInput): string {
   const mean = instrument.meanOffsetHpa;
-  const level = `instrument ${Math.abs(mean).toFixed(1)} hPa ${mean <= 0 ? 'high' : 'low'}`;
+  // Under 0.05 hPa the words would read "0.0 hPa high": say plainly that it reads true.
+  const level = Math.abs(mean) < 0.05 ? 'instrument reads true' : `instrument ${Math.abs(mean).toFixed(1)} hPa ${mean <= 0 ? 'high' : 'low'}`;
   const drift = instrument.penDriftHpaPerWeek;
   if (drift === null) return level;
   if (Math.abs(drift) < 0.05) return `${level}, steady`;

@@ -35,7 +35,7 @@ function input(change: Partial<OverlayInput> = {}): OverlayInput {
     residuals: [
       { index: 0, pressureHpa: 0.04, minutes: -1.26 },
       { index: 1, pressureHpa: -0.02, minutes: 0.5 },
-      { index: 2, pressureHpa: 0, minutes: 0 },
+      { index: 2, pressureHpa: 0.001, minutes: -0.02 },
       { index: 3, pressureHpa: -0.81, minutes: 2 },
     ],
     limit: { hPa: 0.3, minutes: 10 },

@@ -43,7 +43,12 @@ export interface OverlayGeometry {
 }
 
 const fmt = (n: number) => (Math.round(n * 10) / 10).toString();
-const signed = (n: number, digits: number) => `${n > 0 ? '+' : n < 0 ? '−' : ''}${Math.abs(n).toFixed(digits)}`;
+/** A residual with its sign, as it will read once rounded (so a tiny negative one reads 0.0, not −0.0). */
+function signed(n: number, digits: number): string {
+  const text = Math.abs(n).toFixed(digits);
+  const isZero = Number(text) === 0;
+  return `${isZero ? '' : n > 0 ? '+' : '−'}${text}`;
+}
 
 function pathOf(points: ScanPoint[]): string {
   return points.map((p, i) => `${i === 0 ? 'M' : 'L'}${fmt(p.xPx)} ${fmt(p.yPx)}`).join('');

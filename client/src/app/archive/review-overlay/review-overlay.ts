@@ -17,6 +17,8 @@ export class ReviewOverlay {
   readonly detail = input.required<ReviewDetail>();
   /** Object URL of the scan image; null while it loads or when it cannot be shown. */
   readonly imageUrl = input<string | null>(null);
+  /** The archivist can hide the ghost grid to see the printed grid under it. */
+  readonly showsGrid = input(true);
 
   protected readonly geometry = computed(() => {
     const detail = this.detail();

@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -35,7 +36,7 @@ function asSeries(line: ReviewedLine): SeriesPoint[] {
  */
 @Component({
   selector: 'isl-review-page',
-  imports: [DatePipe, DecimalPipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, PressurePlot, LineDifferencePlot, ReviewOverlay, ReviewCorrections],
+  imports: [DatePipe, DecimalPipe, FormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, PressurePlot, LineDifferencePlot, ReviewOverlay, ReviewCorrections],
   templateUrl: './review-page.html',
   styleUrl: './review-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -89,6 +90,7 @@ export class ReviewPage {
     return Object.entries(counts).map(([flag, count]) => `${flag.replace(/_/g, ' ')} ${count}`).join(' · ');
   });
 
+  protected readonly showsGrid = signal(true);
   protected readonly note = signal('');
   protected readonly isBusy = signal(false);
   protected readonly problem = signal<string | null>(null);
