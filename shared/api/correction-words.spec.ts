@@ -14,6 +14,8 @@ describe('correctionsAppliedInWords', () => {
 describe('clockInWords and instrumentInWords', () => {
   it('when the clock ran behind and loses time, then it is said slow and losing', () => {
     expect(clockInWords({ method: 'rate', firstOffsetMinutes: 12, rateMinutesPerDay: 2.5 })).toBe('clock 12 min slow at the first mark, losing 2.5 min a day');
+    expect(clockInWords({ method: 'rate', firstOffsetMinutes: 0.1, rateMinutesPerDay: -0.01 })).toBe('clock keeps true time');
+    expect(clockInWords({ method: 'rate', firstOffsetMinutes: 0.1, rateMinutesPerDay: -1 })).toBe('clock 0 min slow at the first mark, gaining 1.0 min a day');
   });
 
   it('when the barometer reads below the pen and the pen drifts up, then the instrument is said high and drifting +', () => {

@@ -41,10 +41,12 @@ export function instrumentWordsInput(instrument: InstrumentCorrection): Instrume
 /** The clock correction in plain words: how far off at the first mark, and how fast it drifts. */
 export function clockInWords(clock: ClockWordsInput): string {
   const offset = clock.firstOffsetMinutes;
+  const rate = clock.rateMinutesPerDay;
+  // Under half a minute off and a twentieth of a minute a day, "0 min slow, losing 0.0 min a day" says nothing.
+  if (Math.abs(offset) < 0.5 && (clock.method === 'offset' || Math.abs(rate) < 0.05)) return 'clock keeps true time';
   // True time ahead of chart time: the drum has fallen behind, the clock is slow.
   const at = `clock ${Math.abs(offset).toFixed(0)} min ${offset >= 0 ? 'slow' : 'fast'} at the first mark`;
   if (clock.method === 'offset') return at;
-  const rate = clock.rateMinutesPerDay;
   return `${at}, ${rate >= 0 ? 'losing' : 'gaining'} ${Math.abs(rate).toFixed(1)} min a day`;
 }
 
