@@ -126,6 +126,11 @@ describe('review of handed-in ink lines', () => {
     expect((await series()).body.points).toHaveLength(29);
     const history = (await as(archivist, request(context.app).get(API.inkLineReview(id)))).body as ReviewDetail;
     expect(history.history.map((entry) => entry.decision)).toEqual(['approved', 'returned']);
+    // Every decision is in the scan's change log, the return with its note.
+    const log = (await as(archivist, request(context.app).get(API.scanChangeLog(scanId)))).body.items as { action: string; changes: Record<string, { after: unknown }> }[];
+    const decisions = log.filter((entry) => entry.action === 'review').map((entry) => [entry.changes['inkLineStatus'].after, entry.changes['note']?.after ?? null]);
+    expect(decisions).toHaveLength(2);
+    expect(decisions).toEqual(expect.arrayContaining([['approved', null], ['returned', expect.stringMatching(/^Pin 3 is on the 1010 line/)]]));
   });
 
   it('when two archivists decide on the same line at once, then one wins and the other gets version_conflict', async () => {
