@@ -17,6 +17,8 @@ const MARK_KIND_WORDS = { time_mark: 'time mark', chart_on: 'chart on', chart_of
     table td, table th { padding: 2px 8px; text-align: right; }
     table td:first-child, table th:first-child { text-align: left; }
     .left-out { color: var(--mat-sys-error); }
+    /* The words are shared with the Proof checklist, which writes them in lower case. */
+    p::first-letter { text-transform: uppercase; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
