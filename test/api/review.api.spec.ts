@@ -79,6 +79,28 @@ describe('review of handed-in ink lines', () => {
     expect(review.changes.inkLineStatus).toEqual({ before: 'handed_in', after: 'approved' });
   });
 
+  it('when a line is only handed in, or approved on a scan later withdrawn, then neither the query API nor its CSV or NetCDF hold it', async () => {
+    const handedIn = await handIn(volunteer, syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 26));
+    const exports = async () => {
+      const range = { stationId, from: '2026-03-02', to: '2026-03-09' };
+      const json = await as(climatologist, request(context.app).get(API.seriesQuery)).query(range);
+      const csv = await as(climatologist, request(context.app).get(API.seriesQuery)).query({ ...range, format: 'csv' }).buffer(true);
+      const netcdf = await as(climatologist, request(context.app).get(API.seriesQuery)).query({ ...range, format: 'netcdf' }).buffer(true);
+      const csvDataRows = csv.text.trimEnd().split('\n').filter((line) => line !== '' && !line.startsWith('#')).slice(1);
+      return { jsonPoints: json.body.stations[0].points.length, csvDataRows: csvDataRows.length, netcdfStatus: netcdf.status };
+    };
+
+    const whileHandedIn = await exports();
+    await approve(archivist, handedIn.body.inkLineId, handedIn.body.version).expect(200);
+    const whileApproved = await exports();
+    await as(archivist, request(context.app).post(API.scanStatus(scanId))).send({ status: 'withdrawn', reason: 'scanned twice' }).expect(200);
+    const whileWithdrawn = await exports();
+
+    expect(whileHandedIn).toEqual({ jsonPoints: 0, csvDataRows: 0, netcdfStatus: 404 });
+    expect(whileApproved).toEqual({ jsonPoints: 25, csvDataRows: 25, netcdfStatus: 200 });
+    expect(whileWithdrawn).toEqual({ jsonPoints: 0, csvDataRows: 0, netcdfStatus: 404 });
+  });
+
   it('when a line is returned without a note, then it answers 400 naming note and nothing changes', async () => {
     const handedIn = await handIn(volunteer, syntheticDraft(TEST_WEEKLY_FORM, CHART_START));
 
