@@ -1,4 +1,4 @@
-import { EMPTY_BENCH_WORK } from '@shared/api/bench-work';
+import { type BenchWork, EMPTY_BENCH_WORK } from '@shared/api/bench-work';
 import fs from 'node:fs/promises';
 import type { Logger } from 'pino';
 import sharp from 'sharp';
@@ -99,6 +99,26 @@ function knotsFromTruth(sample: DemoSample, chartStartMs: number): { xPx: number
 }
 
 /**
+ * The waiting line's work: as the observer would have written them, chart on and chart off at the ends of the
+ * line and two barometer readings on it, so Review has a clock and an instrument correction to show. The
+ * invented barograph keeps true time and reads true, so both corrections come out near zero.
+ */
+function waitingWork(sample: DemoSample, knots: BenchWork['knots']): BenchWork {
+  const at = (index: number) => sample.truth[Math.min(sample.truth.length - 1, Math.max(0, index))];
+  const iso = (ms: number) => new Date(ms).toISOString();
+  const third = Math.floor(sample.truth.length / 3);
+  return {
+    ...EMPTY_BENCH_WORK,
+    step: 'proof',
+    pins: sample.pins,
+    knots,
+    chartOn: iso(at(0).timeMs),
+    chartOff: iso(at(sample.truth.length - 1).timeMs),
+    checkReadings: [at(third), at(2 * third)].map((row) => ({ time: iso(row.timeMs), pressureHpa: row.pressureHpa })),
+  };
+}
+
+/**
  * Seeds the invented demo scenario once: the five accounts, the two stations, a weekly and a daily chart
  * form and, when fixtures/samples/demo-weekly.png exists, that chart as a ready-to-trace scan of Kestrel
  * Ridge, a re-encoded copy handed in from its true series and approved (so the Series area has data at once),
@@ -160,12 +180,7 @@ export async function seedDemo(deps: ScanDeps, options: SeedDemoOptions): Promis
       const waiting = await uploadOrReuse(deps, { tempPath: waitingPath, originalName: 'demo-weekly-review.png' }, fields, archivistId);
       if (waiting.id !== traced.id && waiting.id !== ready.id) {
         if (waiting.inkLineCount === 0) {
-          await inkLinesService.handInInkLine(
-            db,
-            waiting.id,
-            { work: { ...EMPTY_BENCH_WORK, step: 'proof', pins: sample.pins, knots }, draftVersion: null },
-            volunteerId,
-          );
+          await inkLinesService.handInInkLine(db, waiting.id, { work: waitingWork(sample, knots), draftVersion: null }, volunteerId);
         }
         result.waitingScanId = waiting.id;
       }

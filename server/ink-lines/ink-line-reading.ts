@@ -1,3 +1,4 @@
+import { instrumentWordsInput } from '@shared/api/correction-words';
 import type { InkLineSaved, PinInput } from '@shared/api/ink-lines';
 import type { ChartForm } from '@shared/domain/chart-form';
 import type { PipelineResult } from '@shared/domain/pipeline/digitize-line';
@@ -33,7 +34,7 @@ export function storedResultOf(result: PipelineResult, points: NewSeriesPoint[])
         ? {
             method: instrument.method,
             rmsHpa: instrument.rmsHpa,
-            meanOffsetHpa: instrument.knots.reduce((sum, k) => sum + k.offsetHpa, 0) / Math.max(1, instrument.knots.length),
+            meanOffsetHpa: instrumentWordsInput(instrument).meanOffsetHpa,
             readingCount: usedReadings,
           }
         : null,

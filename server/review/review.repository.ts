@@ -1,10 +1,13 @@
 import type { PageQuery } from '@shared/api/paging';
 import type { ReviewDetail, ReviewedLine, ReviewHistoryEntry, ReviewRow, ReviewState, StoredPointView } from '@shared/api/review';
+import type { ChartFormSummary } from '@shared/api/chart-forms';
+import type { ChartForm } from '@shared/domain/chart-form';
 import { pinRmsLimit } from '@shared/domain/pin-rms-limit';
 import { sql } from 'kysely';
 import * as chartFormsRepository from '../chart-forms/chart-forms.repository';
 import type { DbOrTrx } from '../db/database';
 import { findAgreements } from './cross-trace';
+import { reviewCorrectionsOf } from './review-corrections';
 
 export interface ReviewListFilter {
   stationId?: string;
@@ -37,6 +40,9 @@ function selectReviewRows(db: DbOrTrx) {
       'person.display_name as author_name',
       'pin_set.rms_hpa',
       'pin_set.rms_minutes',
+      // The corrections the hand-in applied, as counts of the marks and readings its fits used (0 or null: none).
+      sql<number | null>`(ink_line.result #>> '{summary,clock,markCount}')::int`.as('clock_mark_count'),
+      sql<number | null>`(ink_line.result #>> '{summary,instrument,readingCount}')::int`.as('instrument_reading_count'),
     ]);
 }
 
@@ -94,6 +100,7 @@ async function toReviewRows(db: DbOrTrx, records: readonly ReviewRowRecord[]): P
       pointCount: lineStats?.count ?? 0,
       gapCount: lineStats?.gaps ?? 0,
       suspectShare: lineStats && lineStats.count > 0 ? lineStats.suspect / lineStats.count : 0,
+      corrections: { clockMarkCount: record.clock_mark_count ?? 0, instrumentReadingCount: record.instrument_reading_count ?? 0 },
       agreement: agreements.get(record.id) ?? null,
     };
   });
@@ -167,6 +174,11 @@ async function readHistory(db: DbOrTrx, inkLineId: string): Promise<ReviewHistor
   return rows.map((row) => ({ decision: row.decision, note: row.note, personName: row.display_name, at: row.at.toISOString() }));
 }
 
+/** The form's geometry alone, without the catalogue's counters. */
+function chartFormOf({ id: _id, version: _version, scanCount: _scanCount, ...form }: ChartFormSummary): ChartForm {
+  return form;
+}
+
 /** Everything the review page shows of one ink line, or undefined when there is no such line. */
 export async function findReviewDetail(db: DbOrTrx, inkLineId: string): Promise<ReviewDetail | undefined> {
   const record = await selectReviewRows(db).where('ink_line.id', '=', inkLineId).executeTakeFirst();
@@ -189,11 +201,20 @@ export async function findReviewDetail(db: DbOrTrx, inkLineId: string): Promise<
     .orderBy('updated_at')
     .executeTakeFirst();
   const otherLine = other ? await readLine(db, other.id) : undefined;
+  const fitted = await db
+    .selectFrom('ink_line')
+    .innerJoin('pin_set', 'pin_set.id', 'ink_line.pin_set_id')
+    .select(['pin_set.fit', 'ink_line.result'])
+    .where('ink_line.id', '=', inkLineId)
+    .executeTakeFirstOrThrow();
   const agreements = other ? await findAgreements(db, [other.id]) : new Map();
   return {
     row,
     scan: { id: scan.id, widthPx: scan.width_px, heightPx: scan.height_px, status: scan.status, chartFormName: scan.chart_form_name },
     pinRmsLimit: form ? pinRmsLimit(form) : { hPa: 0, minutes: 0 },
+    chartForm: form ? chartFormOf(form) : null,
+    registration: { model: fitted.fit.model, paperToPixel: fitted.fit.paperToPixel, penArmRadiusMm: fitted.fit.penArmRadiusMm },
+    corrections: reviewCorrectionsOf(fitted.result),
     line: (await readLine(db, inkLineId))!,
     history: await readHistory(db, inkLineId),
     crossTrace: otherLine ? { ...otherLine, agreement: agreements.get(otherLine.inkLineId) ?? null } : null,

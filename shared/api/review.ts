@@ -1,5 +1,10 @@
 import type { InkLineStatus, KnotInput, PinInput, PinResidualView } from './ink-lines';
 import type { SeriesFlag } from './series';
+import type { CorrectionsApplied } from './correction-words';
+import type { ChartForm } from '../domain/chart-form';
+import type { ClockMarkKind } from '../domain/clock-correction';
+import type { CheckReadingUse } from '../domain/pipeline/robust-instrument';
+import type { RegistrationFit } from '../domain/registration';
 import { FieldReader, type Parsed } from './field-reader';
 
 /** How two independent ink lines of one chart agree over their common span (see shared/domain/line-agreement.ts). */
@@ -42,6 +47,8 @@ export interface ReviewRow {
   gapCount: number;
   /** Share 0–1 of the line's points flagged suspect or off scale. */
   suspectShare: number;
+  /** The clock and instrument corrections the hand-in applied (counts of the marks and readings used). */
+  corrections: CorrectionsApplied;
   /** Agreement with a cross-trace of the same chart; null when there is none yet. */
   agreement: CrossTraceAgreementView | null;
 }
@@ -85,12 +92,66 @@ export interface ReviewedLine {
   points: StoredPointView[];
 }
 
+/** One clock mark of the line (a time mark, chart on or chart off) and its residual. */
+export interface ClockMarkView {
+  kind: ClockMarkKind;
+  /** ISO 8601 UTC: the time read off the chart at the mark, and the true time written for it. */
+  chartTime: string;
+  trueTime: string;
+  /** True minus chart time, minutes. */
+  errorMinutes: number;
+  /** True time minus what the other marks predict for it, minutes; null when too few marks remain. */
+  leaveOneOutMinutes: number | null;
+  /** Left out of the fit: it contradicted the others. */
+  isDropped: boolean;
+}
+
+/** The clock correction applied at hand-in (shared/domain/clock-correction.ts). */
+export interface ClockCorrectionView {
+  method: 'offset' | 'rate' | 'piecewise';
+  firstOffsetMinutes: number;
+  rateMinutesPerDay: number;
+  rmsMinutes: number;
+  marks: ClockMarkView[];
+}
+
+/** One check reading the instrument fit used, and its residual. */
+export interface CheckReadingView {
+  /** ISO 8601 UTC. */
+  time: string;
+  /** Barometer minus chart, hPa. */
+  offsetHpa: number;
+  /** The reading minus what the others predict, hPa; null with a single reading. */
+  residualHpa: number | null;
+}
+
+/** The instrument correction applied at hand-in (shared/domain/instrument-correction.ts). */
+export interface InstrumentCorrectionView {
+  method: 'offset' | 'drift' | 'scale';
+  meanOffsetHpa: number;
+  penDriftHpaPerWeek: number | null;
+  rmsHpa: number;
+  readings: CheckReadingView[];
+}
+
+/** The corrections of the line and their residuals; null members were not applied. */
+export interface ReviewCorrections {
+  clock: ClockCorrectionView | null;
+  instrument: InstrumentCorrectionView | null;
+  /** One entry per check reading the volunteer gave, in their order. */
+  checkReadingUses: CheckReadingUse[];
+}
+
 /** GET /api/ink-lines/:id/review: everything the review page shows. */
 export interface ReviewDetail {
   row: ReviewRow;
   scan: { id: string; widthPx: number; heightPx: number; status: string; chartFormName: string | null };
   /** The registration limits the hand-in was checked against (per chart form). */
   pinRmsLimit: { hPa: number; minutes: number };
+  /** The scan's chart form and the line's fitted registration: together they place the ghost grid on the scan. */
+  chartForm: ChartForm | null;
+  registration: Pick<RegistrationFit, 'model' | 'paperToPixel' | 'penArmRadiusMm'>;
+  corrections: ReviewCorrections;
   line: ReviewedLine;
   history: ReviewHistoryEntry[];
   /** The other independent line of the chart, when there is one handed in or approved. */

@@ -73,6 +73,11 @@ describe('demo scenario seed', () => {
       { scan_id: result.tracedScanId, status: 'approved' },
       { scan_id: result.waitingScanId, status: 'handed_in' },
     ]);
+    // The waiting line came with chart on / chart off and two check readings, so Review shows both corrections.
+    const waitingResult = await context.db.selectFrom('ink_line').select('result').where('scan_id', '=', result.waitingScanId).executeTakeFirstOrThrow();
+    expect(waitingResult.result?.summary.clock).toMatchObject({ markCount: 2 });
+    expect(waitingResult.result?.summary.instrument).toMatchObject({ readingCount: 2 });
+    expect(Math.abs(waitingResult.result?.summary.instrument?.meanOffsetHpa ?? 99)).toBeLessThan(0.2);
     const { count } = await context.db
       .selectFrom('series_point')
       .select((eb) => eb.fn.countAll<number>().as('count'))

@@ -121,6 +121,30 @@ describe('the Desk as a queue', () => {
     ]);
     expect(nothingLeft.body.claim).toBeNull();
   });
+  it('when charts of two boxes stand at different stages, then the archivist sees per box and per station how many are received, ready, claimed, traced and approved', async () => {
+    const claimedInA = await scanAt('2026-03-02T00:00:00Z', { box: 'A' });
+    await scanAt('2026-03-09T00:00:00Z', { box: 'A' });
+    const tracedInB = await scanAt('2026-03-16T00:00:00Z', { box: 'B' });
+    const approvedInB = await scanAt('2026-03-23T00:00:00Z', { box: 'B' });
+    const receivedInB = await scanAt('2026-03-30T00:00:00Z', { box: 'B' });
+    await context.db.updateTable('scan').set({ status: 'received' }).where('id', '=', receivedInB).execute();
+    await as(volunteer, request(context.app).post(API.scanInkLines(tracedInB))).send(syntheticDraft(TEST_WEEKLY_FORM, '2026-03-16T00:00:00Z')).expect(201);
+    const toApprove = await as(otherVolunteer, request(context.app).post(API.scanInkLines(approvedInB))).send(syntheticDraft(TEST_WEEKLY_FORM, '2026-03-23T00:00:00Z')).expect(201);
+    await as(archivist, request(context.app).post(API.inkLineApprove(toApprove.body.inkLineId))).send({ version: toApprove.body.version }).expect(200);
+    await as(archivist, request(context.app).put(API.tracingPriorities)).send({ scope: 'scan', scanId: claimedInA, priority: 5 }).expect(200);
+    const claim = await next(volunteer);
+
+    const byBox = await as(archivist, request(context.app).get(API.tracingProgress)).query({ groupBy: 'box' });
+    const byStation = await as(archivist, request(context.app).get(API.tracingProgress));
+
+    expect(claim.body.claim.scanId).toBe(claimedInA);
+    expect(byBox.body.items).toEqual([
+      expect.objectContaining({ stationId, collection: 'C', box: 'A', received: 0, ready: 1, claimed: 1, traced: 0, approved: 0 }),
+      expect.objectContaining({ stationId, collection: 'C', box: 'B', received: 1, ready: 0, claimed: 0, traced: 1, approved: 1 }),
+    ]);
+    expect(byBox.body.total).toBe(2);
+    expect(byStation.body.items).toEqual([expect.objectContaining({ stationId, box: null, received: 1, ready: 1, claimed: 1, traced: 1, approved: 1 })]);
+  });
 });
 
 describe('cross-trace', () => {

@@ -4,7 +4,7 @@ import type { ReviewDetail, ReviewRow } from '@shared/api/review';
 import type { Page } from '@shared/api/paging';
 import { createChartForm, createPerson, createScanRow, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
-import { syntheticDraft } from '../helpers/trace';
+import { syntheticDraft, syntheticPressureHpa } from '../helpers/trace';
 
 const CHART_START = '2026-03-02T00:00:00.000Z';
 
@@ -79,6 +79,28 @@ describe('review of handed-in ink lines', () => {
     expect(review.changes.inkLineStatus).toEqual({ before: 'handed_in', after: 'approved' });
   });
 
+  it('when a line is only handed in, or approved on a scan later withdrawn, then neither the query API nor its CSV or NetCDF hold it', async () => {
+    const handedIn = await handIn(volunteer, syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 26));
+    const exports = async () => {
+      const range = { stationId, from: '2026-03-02', to: '2026-03-09' };
+      const json = await as(climatologist, request(context.app).get(API.seriesQuery)).query(range);
+      const csv = await as(climatologist, request(context.app).get(API.seriesQuery)).query({ ...range, format: 'csv' }).buffer(true);
+      const netcdf = await as(climatologist, request(context.app).get(API.seriesQuery)).query({ ...range, format: 'netcdf' }).buffer(true);
+      const csvDataRows = csv.text.trimEnd().split('\n').filter((line) => line !== '' && !line.startsWith('#')).slice(1);
+      return { jsonPoints: json.body.stations[0].points.length, csvDataRows: csvDataRows.length, netcdfStatus: netcdf.status };
+    };
+
+    const whileHandedIn = await exports();
+    await approve(archivist, handedIn.body.inkLineId, handedIn.body.version).expect(200);
+    const whileApproved = await exports();
+    await as(archivist, request(context.app).post(API.scanStatus(scanId))).send({ status: 'withdrawn', reason: 'scanned twice' }).expect(200);
+    const whileWithdrawn = await exports();
+
+    expect(whileHandedIn).toEqual({ jsonPoints: 0, csvDataRows: 0, netcdfStatus: 404 });
+    expect(whileApproved).toEqual({ jsonPoints: 25, csvDataRows: 25, netcdfStatus: 200 });
+    expect(whileWithdrawn).toEqual({ jsonPoints: 0, csvDataRows: 0, netcdfStatus: 404 });
+  });
+
   it('when a line is returned without a note, then it answers 400 naming note and nothing changes', async () => {
     const handedIn = await handIn(volunteer, syntheticDraft(TEST_WEEKLY_FORM, CHART_START));
 
@@ -126,6 +148,11 @@ describe('review of handed-in ink lines', () => {
     expect((await series()).body.points).toHaveLength(29);
     const history = (await as(archivist, request(context.app).get(API.inkLineReview(id)))).body as ReviewDetail;
     expect(history.history.map((entry) => entry.decision)).toEqual(['approved', 'returned']);
+    // Every decision is in the scan's change log, the return with its note.
+    const log = (await as(archivist, request(context.app).get(API.scanChangeLog(scanId)))).body.items as { action: string; changes: Record<string, { after: unknown }> }[];
+    const decisions = log.filter((entry) => entry.action === 'review').map((entry) => [entry.changes['inkLineStatus'].after, entry.changes['note']?.after ?? null]);
+    expect(decisions).toHaveLength(2);
+    expect(decisions).toEqual(expect.arrayContaining([['approved', null], ['returned', expect.stringMatching(/^Pin 3 is on the 1010 line/)]]));
   });
 
   it('when two archivists decide on the same line at once, then one wins and the other gets version_conflict', async () => {
@@ -187,7 +214,7 @@ describe('review of handed-in ink lines', () => {
     expect(await scanStatus()).toBe('traced');
   });
 
-  it('when the review list is asked for, then it pages handed-in lines oldest first with their figures, filtered by station and volunteer', async () => {
+  it('when the review list is asked for, then it pages handed-in lines oldest first with their figures, filtered by station, period and volunteer', async () => {
     const otherScan = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: archivist.id, chartStart: '2026-03-09T00:00:00Z' });
     const early = syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 10);
     const late = syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 20, 24);
@@ -197,6 +224,9 @@ describe('review of handed-in ink lines', () => {
     const all = await as(archivist, request(context.app).get(API.review)).query({ pageSize: 1 });
     const byVolunteer = await as(archivist, request(context.app).get(API.review)).query({ authorId: otherVolunteer.id });
     const approvedOnes = await as(archivist, request(context.app).get(API.review)).query({ state: 'approved' });
+    const byPeriod = await as(archivist, request(context.app).get(API.review)).query({ from: '2026-03-09', to: '2026-03-09' });
+    const byStation = await as(archivist, request(context.app).get(API.review)).query({ stationId });
+    const otherStation = await as(archivist, request(context.app).get(API.review)).query({ stationId: (await createStation(context.db)).id });
     const badFilter = await as(archivist, request(context.app).get(API.review)).query({ state: 'lost', from: 'soon' });
 
     const page = all.body as Page<ReviewRow>;
@@ -216,8 +246,42 @@ describe('review of handed-in ink lines', () => {
     expect(page.items[0].pinRmsHpa).toBeLessThan(0.01);
     expect(byVolunteer.body.items.map((row: ReviewRow) => row.inkLineId)).toEqual([second.body.inkLineId]);
     expect(approvedOnes.body.total).toBe(0);
+    expect(byPeriod.body.items.map((row: ReviewRow) => row.inkLineId)).toEqual([second.body.inkLineId]);
+    expect(byStation.body.total).toBe(2);
+    expect(otherStation.body.total).toBe(0);
     expect(badFilter.status).toBe(400);
     expect(Object.keys(badFilter.body.error.details).sort()).toEqual(['from', 'state']);
+  });
+  it('when one line was handed in with chart on and check readings and another without, then each row says which corrections it applied and the review page has their residuals', async () => {
+    const hoursIso = (hours: number) => new Date(Date.parse(CHART_START) + hours * 3_600_000).toISOString();
+    const otherScan = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: archivist.id, chartStart: '2026-03-09T00:00:00Z' });
+    // Chart on written half an hour after the line's first knot: the clock ran 30 min slow. The barometer read
+    // 1.5 hPa below the line at the corrected times: the pen reads high (as in proof-checklist.spec.ts).
+    const corrected = {
+      ...syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 26),
+      chartOn: hoursIso(2.5),
+      checkReadings: [8, 20].map((hours) => ({ time: hoursIso(hours), pressureHpa: syntheticPressureHpa(hours - 0.5) - 1.5 })),
+    };
+    const first = await handIn(volunteer, corrected);
+    const second = await handIn(otherVolunteer, syntheticDraft(TEST_WEEKLY_FORM, '2026-03-09T00:00:00Z'), otherScan);
+
+    const list = await as(archivist, request(context.app).get(API.review));
+    const detail = await as(archivist, request(context.app).get(API.inkLineReview(first.body.inkLineId)));
+    const plain = await as(archivist, request(context.app).get(API.inkLineReview(second.body.inkLineId)));
+
+    expect(first.status).toBe(201);
+    const rows = new Map((list.body as Page<ReviewRow>).items.map((row) => [row.inkLineId, row.corrections]));
+    expect(rows.get(first.body.inkLineId)).toEqual({ clockMarkCount: 1, instrumentReadingCount: 2 });
+    expect(rows.get(second.body.inkLineId)).toEqual({ clockMarkCount: 0, instrumentReadingCount: 0 });
+    const { corrections, chartForm, registration } = detail.body as ReviewDetail;
+    expect(corrections.clock).toMatchObject({ method: 'offset', marks: [expect.objectContaining({ kind: 'chart_on', trueTime: hoursIso(2.5), isDropped: false })] });
+    expect(corrections.clock!.firstOffsetMinutes).toBeCloseTo(30, 0);
+    expect(corrections.instrument).toMatchObject({ method: 'drift', readings: [expect.objectContaining({ time: hoursIso(8) }), expect.objectContaining({ time: hoursIso(20) })] });
+    expect(corrections.instrument!.meanOffsetHpa).toBeCloseTo(-1.5, 1);
+    expect(corrections.checkReadingUses).toEqual(['used', 'used']);
+    expect(chartForm).toMatchObject({ drumHours: TEST_WEEKLY_FORM.drumHours, pressureMin: TEST_WEEKLY_FORM.pressureMin });
+    expect(registration.paperToPixel).toHaveLength(9);
+    expect((plain.body as ReviewDetail).corrections).toEqual({ clock: null, instrument: null, checkReadingUses: [] });
   });
 });
 

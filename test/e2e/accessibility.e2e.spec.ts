@@ -49,6 +49,9 @@ const VISITS: Record<string, PageVisit[]> = {
     { name: 'chart forms', open: goTo('/archive/chart-forms'), ready: '[data-testid="chart-form-row"]' },
     { name: 'chart form page', open: firstOf('/archive/chart-forms', 'chart-form-row'), ready: 'main h1' },
     { name: 'new chart form', open: goTo('/archive/chart-forms/new'), ready: 'main h1' },
+    // The demo keeps one handed-in line waiting for review.
+    { name: 'review', open: goTo('/archive/review'), ready: '[data-testid="review-row"]' },
+    { name: 'review page', open: firstOf('/archive/review', 'review-row', '[data-testid="review-open"]'), ready: '[data-testid="review-ghost-grid"]' },
   ],
   'volunteer@isallo.test': [
     { name: 'desk', open: goTo('/desk'), ready: '[data-testid="next-chart"]' },

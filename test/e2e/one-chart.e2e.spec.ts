@@ -141,6 +141,12 @@ describe('one chart from upload to station series', () => {
     await page.getByTestId('archive-tab-review').click();
     await page.getByTestId('review-row').filter({ hasText: 'saltmere-week-15.png' }).getByTestId('review-open').click();
     await page.getByTestId('review-ink').waitFor();
+    // The ghost grid is drawn from the line's own pins: two of its labelled lines (the 1000 hPa line and the
+    // day-5 arc of the generated form, labelled every 10 hPa and 24 h) cross where the printed ones cross.
+    const majorPath = await page.getByTestId('review-ghost-grid').locator('path.major').getAttribute('d');
+    const printedCrossing = pixelFromReading(chart.layout, { hours: 96, pressure: 1000 });
+    const nearbyLines = polylinesOf(majorPath ?? '').filter((line) => distanceToPolyline(printedCrossing, line) < 3);
+    const residualLabels = await page.getByTestId('review-pin-residual').allTextContents();
     await page.getByTestId('review-note').fill('Please check the pins against the printed grid once more.');
     await page.getByTestId('review-return').click();
     await page.getByTestId('review-done').waitFor();
@@ -200,6 +206,9 @@ describe('one chart from upload to station series', () => {
       expect(flag).toBe('interpolated');
     }
     expect(handedInPointCount).toBe(body.length);
+    expect(nearbyLines).toHaveLength(2);
+    expect(residualLabels).toHaveLength(4);
+    for (const label of residualLabels) expect(label.trim()).toMatch(/^\d: [+−]?\d+\.\d{2} hPa, [+−]?\d+\.\d min$/);
     // Not before: the handed-in, returned and re-handed-in line reached no series until it was approved.
     expect([pointsAfterHandIn, pointsAfterReturn, pointsBeforeApproval]).toEqual([0, 0, 0]);
     await page.close();
@@ -211,4 +220,29 @@ async function expectCount(page: Page, testId: string, count: number): Promise<v
     ([id, n]) => document.querySelectorAll(`[data-testid="${id}"]`).length === n,
     [testId, count] as const,
   );
+}
+
+/** The subpaths of SVG path data made of M and L commands, as point lists. */
+function polylinesOf(d: string): { xPx: number; yPx: number }[][] {
+  return d
+    .split('M')
+    .filter((part) => part.trim() !== '')
+    .map((part) => part.split('L').map((pair) => {
+      const [x, y] = pair.trim().split(/\s+/).map(Number);
+      return { xPx: x, yPx: y };
+    }));
+}
+
+/** Shortest distance from a point to a polyline, px. */
+function distanceToPolyline(point: { xPx: number; yPx: number }, line: { xPx: number; yPx: number }[]): number {
+  let best = Number.POSITIVE_INFINITY;
+  for (let i = 1; i < line.length; i++) {
+    const a = line[i - 1];
+    const b = line[i];
+    const dx = b.xPx - a.xPx;
+    const dy = b.yPx - a.yPx;
+    const t = Math.max(0, Math.min(1, ((point.xPx - a.xPx) * dx + (point.yPx - a.yPx) * dy) / (dx * dx + dy * dy || 1)));
+    best = Math.min(best, Math.hypot(point.xPx - (a.xPx + t * dx), point.yPx - (a.yPx + t * dy)));
+  }
+  return best;
 }

@@ -3,13 +3,17 @@ import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/cor
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
+import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatIconModule } from '@angular/material/icon';
+import { MatInputModule } from '@angular/material/input';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatSelectModule } from '@angular/material/select';
 import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import type { ProgressGroup, TracingProgressRow } from '@shared/api/desk';
 import { DEFAULT_PAGE_SIZE } from '@shared/api/paging';
+import { correctionsAppliedInWords } from '@shared/api/correction-words';
 import type { ReviewRow, ReviewState } from '@shared/api/review';
 import { catchError, map, of } from 'rxjs';
 
@@ -20,7 +24,7 @@ import { ReviewApi } from '../review-api';
 /** The archivist's Review: handed-in ink lines, oldest first, with what a decision needs; and tracing progress. */
 @Component({
   selector: 'isl-review-list',
-  imports: [DatePipe, DecimalPipe, PercentPipe, FormsModule, RouterLink, MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatButtonToggleModule],
+  imports: [DatePipe, DecimalPipe, PercentPipe, FormsModule, RouterLink, MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatButtonToggleModule, MatButtonModule, MatIconModule, MatInputModule],
   templateUrl: './review-list.html',
   styles: `
     .filters { display: flex; flex-wrap: wrap; gap: 12px; }
@@ -34,11 +38,24 @@ export class ReviewList {
   protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
   protected readonly stationId = signal('');
   protected readonly state = signal<ReviewState>('handed_in');
-  protected readonly columns = ['handedInAt', 'chart', 'volunteer', 'pins', 'span', 'quality', 'agreement', 'open'];
+  /** Chart start range, YYYY-MM-DD ('' for open); the server takes both ends inclusive. */
+  protected readonly from = signal('');
+  protected readonly to = signal('');
+  protected readonly volunteer = signal<{ id: string; name: string } | null>(null);
+  protected readonly columns = ['handedInAt', 'chart', 'volunteer', 'pins', 'span', 'quality', 'corrections', 'agreement', 'open'];
+  /** A pure function, so the cell's words are the same wherever the corrections are named. */
+  protected readonly correctionsInWords = correctionsAppliedInWords;
   private readonly list = createPagedList<ReviewRow, never>({
     initialQuery: { page: 0, pageSize: DEFAULT_PAGE_SIZE, direction: 'asc' },
     sortKeys: [],
-    load: (query) => this.reviewApi.list(query, { state: this.state(), stationId: this.stationId() || undefined }),
+    load: (query) =>
+      this.reviewApi.list(query, {
+        state: this.state(),
+        stationId: this.stationId() || undefined,
+        from: this.from() || undefined,
+        to: this.to() || undefined,
+        authorId: this.volunteer()?.id,
+      }),
     failureMessage: 'The review list could not be loaded.',
   });
   protected readonly query = this.list.query;
@@ -58,9 +75,12 @@ export class ReviewList {
   protected readonly progressTotal = this.progressList.total;
   protected readonly progressColumns = ['place', 'received', 'ready', 'claimed', 'traced', 'approved'];
 
-  protected filterBy(change: { stationId?: string; state?: ReviewState }): void {
+  protected filterBy(change: { stationId?: string; state?: ReviewState; from?: string; to?: string; volunteer?: { id: string; name: string } | null }): void {
     if (change.stationId !== undefined) this.stationId.set(change.stationId);
     if (change.state !== undefined) this.state.set(change.state);
+    if (change.from !== undefined) this.from.set(change.from);
+    if (change.to !== undefined) this.to.set(change.to);
+    if (change.volunteer !== undefined) this.volunteer.set(change.volunteer);
     this.list.query.update((current) => ({ ...current, page: 0 }));
   }
 

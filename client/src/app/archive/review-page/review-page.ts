@@ -3,6 +3,7 @@ import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, input
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
@@ -16,6 +17,8 @@ import { ApiError } from '../../core/http/api-error';
 import { ObjectUrlHolder } from '../../shared/object-url/object-url';
 import { PressurePlot } from '../../shared/pressure-plot/pressure-plot';
 import { LineDifferencePlot } from '../line-difference/line-difference-plot';
+import { ReviewCorrections } from '../review-corrections/review-corrections';
+import { ReviewOverlay } from '../review-overlay/review-overlay';
 import { ReviewApi } from '../review-api';
 
 const IMAGE_SIDE_PX = 2400;
@@ -25,19 +28,15 @@ function asSeries(line: ReviewedLine): SeriesPoint[] {
   return line.points.map((point) => ({ ...point, inkLineId: line.inkLineId }));
 }
 
-/** SVG polyline points of a line's knots, in scan pixels. */
-function knotPath(line: ReviewedLine): string {
-  return line.knots.map((knot) => `${knot.xPx.toFixed(1)},${knot.yPx.toFixed(1)}`).join(' ');
-}
-
 /**
- * One ink line under review: the scan with the line and its pins drawn over it, the hourly series with its
- * flags, the pin residuals against the chart form's limit, the cross-trace with the difference of the two lines,
+ * One ink line under review: the scan with the ghost grid, the line and its pins drawn over it, the corrected
+ * hourly series with its flags, the pin residuals against the chart form's limit, the clock and instrument
+ * corrections with their residuals, the cross-trace with the difference of the two lines,
  * the review history, and Approve or Return with a note.
  */
 @Component({
   selector: 'isl-review-page',
-  imports: [DatePipe, DecimalPipe, FormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, PressurePlot, LineDifferencePlot],
+  imports: [DatePipe, DecimalPipe, FormsModule, RouterLink, MatButtonModule, MatCheckboxModule, MatFormFieldModule, MatIconModule, MatInputModule, PressurePlot, LineDifferencePlot, ReviewOverlay, ReviewCorrections],
   templateUrl: './review-page.html',
   styleUrl: './review-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -85,22 +84,13 @@ export class ReviewPage {
     const cross = this.detail()?.crossTrace;
     return cross ? asSeries(cross) : [];
   });
-  protected readonly knots = computed(() => {
-    const detail = this.detail();
-    return detail ? knotPath(detail.line) : '';
-  });
-  protected readonly crossKnots = computed(() => {
-    const cross = this.detail()?.crossTrace;
-    return cross ? knotPath(cross) : '';
-  });
   protected readonly flagCounts = computed(() => {
     const counts: Record<string, number> = {};
     for (const point of this.detail()?.line.points ?? []) counts[point.flag] = (counts[point.flag] ?? 0) + 1;
     return Object.entries(counts).map(([flag, count]) => `${flag.replace(/_/g, ' ')} ${count}`).join(' · ');
   });
-  /** Pen line width in the overlay, scan px: thin enough to see the ink under it at full size. */
-  protected readonly strokePx = computed(() => Math.max(2, (this.detail()?.scan.widthPx ?? 1000) / 800));
 
+  protected readonly showsGrid = signal(true);
   protected readonly note = signal('');
   protected readonly isBusy = signal(false);
   protected readonly problem = signal<string | null>(null);

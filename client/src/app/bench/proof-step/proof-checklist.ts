@@ -1,4 +1,5 @@
 import type { BenchWork } from '@shared/api/bench-work';
+import { clockInWords as clockWords, clockWordsInput, instrumentInWords as instrumentWords, instrumentWordsInput } from '@shared/api/correction-words';
 import type { PipelineResult } from '@shared/domain/pipeline/digitize-line';
 
 /** One line of the Proof checklist: fine, or a specific warning. */
@@ -13,33 +14,16 @@ const PIN_WARN_HPA = 0.5;
 
 const plural = (n: number, one: string, many = `${one}s`) => `${n} ${n === 1 ? one : many}`;
 
-/** Says the clock correction in plain words: how far off at the first mark, and how fast it drifts. */
+/** Says the clock correction in plain words (shared with Review), or null when the clock was not corrected. */
 export function clockInWords(result: PipelineResult): string | null {
   const clock = result.clock;
-  if (!clock || clock.method === 'none') return null;
-  const first = clock.knots[0];
-  const offsetMinutes = (first.trueTimeMs - first.chartTimeMs) / 60_000;
-  // True time ahead of chart time: the drum has fallen behind, the clock is slow.
-  const at = `clock ${Math.abs(offsetMinutes).toFixed(0)} min ${offsetMinutes >= 0 ? 'slow' : 'fast'} at the first mark`;
-  if (clock.method === 'offset') return at;
-  const rate = clock.rateMinutesPerDay;
-  return `${at}, ${rate >= 0 ? 'losing' : 'gaining'} ${Math.abs(rate).toFixed(1)} min a day`;
+  return clock && clock.method !== 'none' ? clockWords(clockWordsInput(clock)) : null;
 }
 
-/** Says the instrument correction in plain words: how far off on average, and the drift over the readings. */
+/** Says the instrument correction in plain words (shared with Review), or null when it was not corrected. */
 export function instrumentInWords(result: PipelineResult): string | null {
   const instrument = result.instrument;
-  if (!instrument || instrument.method === 'none' || instrument.knots.length === 0) return null;
-  const mean = instrument.knots.reduce((sum, k) => sum + k.offsetHpa, 0) / instrument.knots.length;
-  // The correction is barometer − chart: a negative offset means the pen reads high.
-  const level = `instrument ${Math.abs(mean).toFixed(1)} hPa ${mean <= 0 ? 'high' : 'low'}`;
-  if (instrument.knots.length < 2) return level;
-  const first = instrument.knots[0];
-  const last = instrument.knots[instrument.knots.length - 1];
-  const weeks = (last.timeMs - first.timeMs) / (7 * 86_400_000);
-  const drift = weeks > 0 ? -(last.offsetHpa - first.offsetHpa) / weeks : 0;
-  if (Math.abs(drift) < 0.05) return `${level}, steady`;
-  return `${level}, drifting ${drift >= 0 ? '+' : '−'}${Math.abs(drift).toFixed(1)} hPa a week`;
+  return instrument && instrument.method !== 'none' && instrument.knots.length > 0 ? instrumentWords(instrumentWordsInput(instrument)) : null;
 }
 
 /** The checklist from the numbers of the pipeline's result: pins, line, gaps, suspect stretches, corrections. */
