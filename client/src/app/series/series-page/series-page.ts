@@ -17,11 +17,14 @@ import { PRESSURE_UNITS, type PressureUnit } from '@shared/domain/pressure-units
 import { catchError, debounceTime, distinctUntilChanged, filter, map, of, switchMap } from 'rxjs';
 
 import { StationsApi } from '../../core/api/stations-api';
+import { rolesFor } from '../../core/auth/areas';
+import { AuthSession } from '../../core/auth/auth-session';
 import { ApiError } from '../../core/http/api-error';
 import { ObjectUrlHolder, saveBlob } from '../../shared/object-url/object-url';
 import { FlagLegend } from '../../shared/plot-marks/flag-legend';
 import { CoverageStrip } from '../coverage-strip/coverage-strip';
 import { DerivedPanel } from '../derived-panel/derived-panel';
+import { lessonLinkFor } from '../lesson-link';
 import { chooseDetailStep, fetchWindowMs, STEP_WORDS } from '../plot-math/detail-step';
 import { toPlotPoints } from '../plot-math/plot-points';
 import { reduceLineToSeaLevel, reductionHeightM, type SeaLevelAssumptions } from '../plot-math/sea-level-line';
@@ -79,6 +82,7 @@ export class SeriesPage {
   private readonly destroyRef = inject(DestroyRef);
   private readonly document = inject(DOCUMENT);
   private readonly imageUrls = new ObjectUrlHolder(this.destroyRef);
+  private readonly session = inject(AuthSession);
 
   protected readonly units = PRESSURE_UNITS.filter((unit) => unit === 'hPa' || unit === 'inHg' || unit === 'mmHg');
   protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
@@ -153,10 +157,19 @@ export class SeriesPage {
     if (detail?.state !== 'ready') return '';
     return detail.value.stations.map((series) => `${series.stationCode} version ${series.version}${series.builtAt ? `, built ${series.builtAt.slice(0, 16).replace('T', ' ')} UTC` : ''}`).join(' · ');
   });
+  /** Teachers (and whoever may open Lessons) start a lesson from the brushed range. */
   protected readonly lessonLink = computed(() => {
     const view = this.viewMs();
-    if (!view || this.stationId() === '') return null;
-    return { stationId: this.stationId(), from: new Date(view[0]).toISOString(), to: new Date(view[1]).toISOString() };
+    if (!view || this.stationId() === '' || !this.session.hasAnyRole(rolesFor('lessons'))) return null;
+    return lessonLinkFor(this.stationId(), view);
+  });
+  protected readonly lessonQueryParams = computed(() => {
+    const link = this.lessonLink();
+    return link && 'queryParams' in link ? link.queryParams : null;
+  });
+  protected readonly lessonProblem = computed(() => {
+    const link = this.lessonLink();
+    return link && 'problem' in link ? link.problem : null;
   });
   protected readonly seaLevelHeightM = computed(() => {
     const station = this.station();
