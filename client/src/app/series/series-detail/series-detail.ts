@@ -10,7 +10,8 @@ import { nearestPointIndex } from '../plot-math/plot-points';
 import { formatPressure } from '../plot-math/unit-ticks';
 import { detailTicks, drawLines, type StationLine } from './detail-lines';
 
-const BOX: PlotBox = { width: 960, height: 380, marginLeft: 60, marginRight: 16, marginTop: 12, marginBottom: 40 };
+// The top margin holds the unit's name above the pressure labels, so the two never meet.
+const BOX: PlotBox = { width: 960, height: 392, marginLeft: 60, marginRight: 16, marginTop: 24, marginBottom: 40 };
 /** The closest zoom: half an hour across the plot. */
 const MIN_VIEW_MS = 30 * 60_000;
 
