@@ -103,4 +103,32 @@ describe('the Series page from the whole record to the chart behind a point', ()
     expect(await panel.getByTestId('chart-mark').count()).toBe(1);
     await page.close();
   });
+
+  it('when a teacher brushes three days and starts a lesson, then New lesson opens with the station and the range filled in', async () => {
+    const token = await tokenFor(server.url, 'teacher@isallo.test');
+    const stations = await apiCall<Paged<StationSummary>>(server.url, token, '/api/stations?pageSize=100');
+    const kestrel = stations.items.find((station) => station.code === 'KRO') as StationSummary;
+    const page = await chromium.browser.newPage({ viewport: { width: 1400, height: 1100 } });
+    await signIn(page, server.url, 'teacher@isallo.test', DEMO_PASSWORD);
+    await page.getByTestId('nav-series').click();
+    await chooseOption(page, 'series-station', 'Kestrel Ridge Observatory (KRO)');
+    await page.getByTestId('overview-band').waitFor();
+
+    // Act: type three days, then follow the link.
+    await page.getByTestId('series-from').fill('2026-03-03');
+    await page.getByTestId('series-to').fill('2026-03-05');
+    await page.getByTestId('series-show').click();
+    await page.getByTestId('series-plot').getByTestId('series-line').waitFor();
+    await page.getByTestId('series-start-lesson').click();
+
+    // Assert: the lesson form holds the station and the range the plot showed.
+    await page.getByTestId('new-lesson-from').waitFor();
+    const url = new URL(page.url());
+    expect(url.pathname).toBe('/lessons/new');
+    expect(url.searchParams.get('stationId')).toBe(kestrel.id);
+    expect(await page.getByTestId('new-lesson-from').inputValue()).toBe('2026-03-03T00:00:00.000Z');
+    expect(await page.getByTestId('new-lesson-to').inputValue()).toBe('2026-03-05T23:59:59.999Z');
+    expect(await page.getByTestId('new-lesson-station').textContent()).toContain('Kestrel Ridge Observatory');
+    await page.close();
+  });
 });
