@@ -1,10 +1,12 @@
-import { Router, type RequestHandler, type Response } from 'express';
+import { Router, type Request, type RequestHandler, type Response } from 'express';
 import { IIIF } from '@shared/api/routes';
 import type { AppDeps } from '../app-deps';
-import { requireRoles } from '../auth/require-roles';
+import { requireRoles, signedInPerson } from '../auth/require-roles';
+import { AppError, HTTP } from '../errors/app-error';
 import { parseScanId } from '../scans/parse-scan-input';
 import { seesWithdrawn } from '../scans/scans.routes';
 import * as scansService from '../scans/scans.service';
+import { scanHasSeriesLine } from '../series/series-membership';
 import { INFO_MEDIA_TYPE } from './info-document';
 import { PRESENTATION_MEDIA_TYPE } from './manifest-document';
 import * as iiifService from './iiif.service';
@@ -34,16 +36,39 @@ const iiifCors: RequestHandler = (req, res, next) => {
   next();
 };
 
-/** Mounted at /iiif, before the client fallback. Archivists and volunteers, with the bearer token. */
+/** Roles that work on scans and see every one they may catalogue. */
+const SCAN_WORKER_ROLES = ['archivist', 'volunteer'] as const;
+
+/** True when the caller reads images only as a climatologist (no archivist or volunteer role). */
+function readsAsClimatologist(req: Request): boolean {
+  const { roles } = signedInPerson(req.user);
+  return !roles.some((role) => (SCAN_WORKER_ROLES as readonly string[]).includes(role));
+}
+
+/**
+ * Mounted at /iiif, before the client fallback, with the bearer token. Archivists and volunteers read every
+ * route; climatologists read the image routes (base, info.json, image requests) of the scans whose lines they
+ * can see in a series: an approved line of a scan that is not withdrawn. Manifests and box collections
+ * describe the catalogue, which is the archive's, so they stay with archivists and volunteers.
+ */
 export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: RequestHandler): Router {
   const router = Router();
   // Ids and manifests name the configured public base URL, never the request's Host header (which a caller can forge).
   const origin = config.publicUrl;
-  router.use(iiifCors, authenticate, requireRoles('archivist', 'volunteer'));
+  const mayWorkOnScans = requireRoles(...SCAN_WORKER_ROLES);
+  router.use(iiifCors, authenticate, requireRoles(...SCAN_WORKER_ROLES, 'climatologist'));
   // A withdrawn scan's images and manifest are hidden from volunteers as its catalogue entry is.
   router.param('scanId', async (req, _res, next, value: string) => {
     try {
-      await scansService.getScan(db, parseScanId(value), { hideWithdrawn: !seesWithdrawn(req) });
+      const scanId = parseScanId(value);
+      if (readsAsClimatologist(req)) {
+        await scansService.getScan(db, scanId, { hideWithdrawn: true });
+        if (!(await scanHasSeriesLine(db, scanId))) {
+          throw new AppError(HTTP.forbidden, 'forbidden', 'A climatologist may read the images of scans with an approved line in a station series only.');
+        }
+      } else {
+        await scansService.getScan(db, scanId, { hideWithdrawn: !seesWithdrawn(req) });
+      }
       next();
     } catch (error) {
       next(error);
@@ -59,7 +84,7 @@ export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: Reque
     const info = await iiifService.getInfoDocument(db, scanId, `${origin}${IIIF.imageBase(scanId)}`);
     sendJsonLd(res, INFO_MEDIA_TYPE, info, 'private, max-age=300');
   });
-  router.get('/3/:scanId/manifest', async (req, res) => {
+  router.get('/3/:scanId/manifest', mayWorkOnScans, async (req, res) => {
     const manifest = await iiifService.getManifest(db, parseScanId(req.params.scanId), origin);
     sendJsonLd(res, PRESENTATION_MEDIA_TYPE, manifest, 'private, no-cache');
   });
@@ -69,7 +94,7 @@ export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: Reque
     // Pixels of a page never change under their URL (masters are never rewritten).
     res.sendFile(image.filePath, { dotfiles: 'allow', headers: { 'Content-Type': image.contentType, 'Cache-Control': 'private, max-age=86400' } });
   });
-  router.get('/collection/box/:collection/:box', async (req, res) => {
+  router.get('/collection/box/:collection/:box', mayWorkOnScans, async (req: Request<{ collection: string; box: string }>, res: Response) => {
     const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, origin);
     sendJsonLd(res, PRESENTATION_MEDIA_TYPE, collection, 'private, no-cache');
   });

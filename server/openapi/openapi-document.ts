@@ -1,6 +1,7 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from '@asteasolutions/zod-to-openapi';
 import { z } from 'zod';
 import { apiTokenCreatedSchema, apiTokenCreateSchema, apiTokenSummarySchema } from '@shared/api/api-tokens';
+import { pointChartQuerySchema, pointChartSchema } from '@shared/api/series-point-chart';
 import { seriesQueryResponseSchema, seriesQuerySchema, stationCoverageSchema } from '@shared/api/series-query';
 
 /** The error body every route answers with (shared/api/errors.ts). */
@@ -65,6 +66,14 @@ export function buildOpenApiDocument(): ReturnType<OpenApiGeneratorV31['generate
     security,
     request: { params: pathStationId },
     responses: { 200: { description: 'The coverage.', content: { 'application/json': { schema: stationCoverageSchema } } }, ...errors(401, 403, 404) },
+  });
+  registry.registerPath({
+    method: 'get',
+    path: '/api/series/point-chart',
+    summary: 'The chart behind a series point: its ink line, scan, chart form and the scan region around it (IIIF)',
+    security,
+    request: { query: pointChartQuerySchema },
+    responses: { 200: { description: 'The point and its chart region.', content: { 'application/json': { schema: pointChartSchema } } }, ...errors(400, 401, 403, 404) },
   });
   registry.registerPath({
     method: 'get',

@@ -31,3 +31,16 @@ export async function findSeriesInkLineIds(db: DbOrTrx, stationId: string): Prom
     .execute();
   return rows.map((row) => row.id);
 }
+
+/** True when the scan has a line in its station's series: a climatologist may then see the scan's images. */
+export async function scanHasSeriesLine(db: DbOrTrx, scanId: string): Promise<boolean> {
+  const row = await db
+    .selectFrom('ink_line')
+    .innerJoin('scan', 'scan.id', 'ink_line.scan_id')
+    .select('ink_line.id')
+    .where('scan.id', '=', scanId)
+    .where(inkLineCountsInSeries)
+    .limit(1)
+    .executeTakeFirst();
+  return row !== undefined;
+}

@@ -1,11 +1,14 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import type { SeriesResponse } from '@shared/api/series';
+import type { PointChart } from '@shared/api/series-point-chart';
 import type { SeriesQueryResponse, StationCoverage } from '@shared/api/series-query';
 import type { AppDeps } from '../app-deps';
 import { requireRoles } from '../auth/require-roles';
 import { AppError, HTTP } from '../errors/app-error';
 import { parsePathId } from '../http/parse-body';
 import * as coverageService from './coverage.service';
+import { parsePointChartQuery } from './parse-point-chart-query';
+import * as pointChartService from './point-chart.service';
 import { parseSeriesQuery } from './parse-series-query';
 import { parseSeriesRange } from './parse-series-range';
 import { SERIES_CSV_HEADER_LINE, seriesCsvFileName, seriesCsvLines } from './series-csv';
@@ -77,6 +80,11 @@ export function seriesRoutes({ db }: AppDeps, authenticateRead: RequestHandler):
     res.write(seriesCsvColumnLine(query));
     for (const one of series) res.write(seriesCsvRows(one.stationCode, one.points, query.step === 'raw'));
     res.end();
+  });
+
+  router.get('/series/point-chart', authenticateRead, mayRead, async (req, res: Response<PointChart>) => {
+    const { stationId, timeMs } = parsePointChartQuery(req.query);
+    res.json(await pointChartService.getPointChart(db, stationId, timeMs));
   });
 
   router.get('/stations/:stationId/coverage', authenticateRead, mayRead, async (req, res: Response<StationCoverage>) => {

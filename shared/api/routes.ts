@@ -46,6 +46,7 @@ export const API = {
   seriesCsv: '/api/series.csv',
   /** Steps, aggregates, flags, several stations, JSON / CSV / CF NetCDF. */
   seriesQuery: '/api/series/query',
+  seriesPointChart: '/api/series/point-chart',
   stationCoverage: (stationId: string) => `/api/stations/${enc(stationId)}/coverage`,
   apiTokens: '/api/tokens',
   apiToken: (tokenId: string) => `/api/tokens/${enc(tokenId)}`,

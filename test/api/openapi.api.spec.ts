@@ -44,7 +44,7 @@ describe('OpenAPI description', () => {
 
   it('when the description is fetched, then it is OpenAPI 3.1 with the series, coverage and token routes', async () => {
     expect(document.openapi).toBe('3.1.0');
-    expect(Object.keys(document.paths).sort()).toEqual(['/api/series/query', '/api/stations/{stationId}/coverage', '/api/tokens', '/api/tokens/{tokenId}']);
+    expect(Object.keys(document.paths).sort()).toEqual(['/api/series/point-chart', '/api/series/query', '/api/stations/{stationId}/coverage', '/api/tokens', '/api/tokens/{tokenId}']);
     const parameters = document.paths['/api/series/query'].get.parameters.map((parameter: { name: string }) => parameter.name);
     expect(parameters).toEqual(expect.arrayContaining(['stationId', 'from', 'to', 'step', 'aggregate', 'flags', 'excludeFlags', 'format']));
   });

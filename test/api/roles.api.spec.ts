@@ -37,6 +37,7 @@ describe('who may call each route', () => {
   let stationId: string;
   let chartFormId: string;
   let scanId: string;
+  let seriesScanId: string;
   let draftScanId: string;
   let instrumentId: string;
   let editableFormId: string;
@@ -188,21 +189,24 @@ describe('who may call each route', () => {
     },
     {
       name: 'GET /iiif/3/:scanId',
-      roles: ['archivist', 'volunteer'],
+      // A climatologist reads the images of scans with an approved line (seriesScanId has one, see beforeAll).
+      roles: ['archivist', 'volunteer', 'climatologist'],
       successStatus: 303,
-      call: (token) => withToken(request(context.app).get(IIIF.imageBase(scanId)).redirects(0), token),
+      call: (token) => withToken(request(context.app).get(IIIF.imageBase(seriesScanId)).redirects(0), token),
     },
     {
       name: 'GET /iiif/3/:scanId/info.json',
-      roles: ['archivist', 'volunteer'],
+      // A climatologist reads the images of scans with an approved line (seriesScanId has one, see beforeAll).
+      roles: ['archivist', 'volunteer', 'climatologist'],
       successStatus: 200,
-      call: (token) => withToken(request(context.app).get(IIIF.info(scanId)), token),
+      call: (token) => withToken(request(context.app).get(IIIF.info(seriesScanId)), token),
     },
     {
       name: 'GET /iiif/3/:scanId/:region/:size/:rotation/:quality.:format',
-      roles: ['archivist', 'volunteer'],
+      // A climatologist reads the images of scans with an approved line (seriesScanId has one, see beforeAll).
+      roles: ['archivist', 'volunteer', 'climatologist'],
       successStatus: 200,
-      call: (token) => withToken(request(context.app).get(IIIF.image(scanId, 'full', '!100,100')), token),
+      call: (token) => withToken(request(context.app).get(IIIF.image(seriesScanId, 'full', '!100,100')), token),
     },
     {
       name: 'GET /iiif/3/:scanId/manifest',
@@ -544,6 +548,13 @@ describe('who may call each route', () => {
     );
     scanId = scan.id;
     draftScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: PERIOD_START });
+    // A scan with an approved line is in its station's series: a climatologist may then read its images.
+    const seriesTempPath = context.storage.newTempPath('.upload');
+    await fs.writeFile(seriesTempPath, await makePng(400, 200));
+    seriesScanId = (
+      await scansService.uploadScan(context, { tempPath: seriesTempPath, originalName: 'role-series.png' }, { stationId, chartFormId, chartStart: new Date(PERIOD_START) }, people.archivist.id)
+    ).id;
+    await createInkLineWithPoints(context.db, { scanId: seriesScanId, stationId, authorId: people.volunteer.id, status: 'approved', points: [] });
     await context.db.updateTable('scan').set({ collection: 'ROLE', box: '1' }).where('id', '=', scanId).execute();
     // A lesson of the teacher over a traced front, so the passage has a chart region; and a live share link.
     const lessonStationId = (await createStation(context.db)).id;
@@ -616,6 +627,20 @@ describe('who may call each route', () => {
     expect(scans.status).toBe(200);
     expect(series.status).toBe(200);
     expect(people.status).toBe(403);
+  });
+
+  it('when a climatologist asks for the images of a scan with no approved line, then each image route answers 403', async () => {
+    const handedInScanId = await createScanRow(context.db, { stationId, chartFormId, uploadedBy: people.archivist.id, chartStart: PERIOD_START, status: 'traced' });
+    await createInkLineWithPoints(context.db, { scanId: handedInScanId, stationId, authorId: people.volunteer.id, status: 'handed_in', points: [] });
+    const asClimatologist = (path: string) => request(context.app).get(path).redirects(0).set('Authorization', `Bearer ${people.climatologist.token}`);
+
+    const answers = await Promise.all([IIIF.imageBase(handedInScanId), IIIF.info(handedInScanId), IIIF.image(handedInScanId, 'full', '!100,100')].map(asClimatologist));
+    const volunteerInfo = await request(context.app).get(IIIF.info(draftScanId)).set('Authorization', `Bearer ${people.volunteer.token}`);
+
+    expect(answers.map((answer) => answer.status)).toEqual([403, 403, 403]);
+    expect(answers.map((answer) => answer.body.error.code)).toEqual(['forbidden', 'forbidden', 'forbidden']);
+    // The rule is the climatologist's only: a volunteer passes the same check (and then finds no file).
+    expect(volunteerInfo.status).not.toBe(403);
   });
 
   it('when the public routes are called without a token, then they answer', async () => {

@@ -185,18 +185,19 @@ describe('one chart from upload to station series', () => {
     const download = await downloadPromise;
     const csvPath = join(workDir, 'series.csv');
     await download.saveAs(csvPath);
-    const rows = parseCsv(readFileSync(csvPath, 'utf8'));
+    // The Series page downloads the shown range from the query API: a commented header, then the rows.
+    const rows = parseCsv(readFileSync(csvPath, 'utf8')).filter((row) => !row[0].startsWith('#'));
 
     // Assert: hourly rows between the first and last knot, each within 0.6 hPa of the invented truth
     // (a click lands within half a screen pixel, about 0.15 hPa at this scale; the straight segments between
     // two-hourly knots cut the curve's corners by a few tenths).
-    expect(rows[0]).toEqual(['time', 'pressure_hpa', 'flag', 'uncertainty_hpa', 'ink_line_id']);
+    expect(rows[0]).toEqual(['station_code', 'time', 'pressure_hpa', 'flag', 'uncertainty_hpa', 'ink_line_id']);
     const body = rows.slice(1);
     // The first and last knot land a few seconds either side of their hour, so one end hour may drop out.
     const spanHours = knotHours[knotHours.length - 1] - knotHours[0] + 1;
     expect(body.length).toBeGreaterThanOrEqual(spanHours - 2);
     expect(body.length).toBeLessThanOrEqual(spanHours);
-    for (const [time, pressure, flag] of body) {
+    for (const [, time, pressure, flag] of body) {
       expect(time).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:00:00\.000Z$/);
       const hours = (Date.parse(time) - chartStartMs) / HOUR_MS;
       // Straight segments between hand knots cannot follow the jump's own ten minutes; judge the rest.

@@ -1,18 +1,4 @@
-import { parseUtcDay, rangeInstantsMs, seriesCsvFileName } from './series-range';
-
-describe('seriesCsvFileName', () => {
-  it('when a station code and days are given, then the name is isallo-CODE-from-to.csv', () => {
-    const name = seriesCsvFileName('KRO', '2026-03-02', '2026-03-09');
-
-    expect(name).toBe('isallo-KRO-2026-03-02-2026-03-09.csv');
-  });
-
-  it('when the code holds characters unsafe in file names, then they become underscores', () => {
-    const name = seriesCsvFileName('K/R O', '2026-03-02', '2026-03-02');
-
-    expect(name).toBe('isallo-K_R_O-2026-03-02-2026-03-02.csv');
-  });
-});
+import { parseUtcDay, seriesFileName } from './series-range';
 
 describe('parseUtcDay', () => {
   it.each([
@@ -28,11 +14,10 @@ describe('parseUtcDay', () => {
   });
 });
 
-describe('rangeInstantsMs', () => {
-  it('when from and to are the same day, then the range covers that whole UTC day', () => {
-    const [fromMs, toMs] = rangeInstantsMs({ stationId: 's', fromDay: '2026-03-02', toDay: '2026-03-02' });
+describe('seriesFileName', () => {
+  it('when two stations are downloaded hourly as NetCDF, then the name holds both codes, the range in UTC and the step', () => {
+    const name = seriesFileName(['KRO', 'S/B'], Date.UTC(2026, 2, 2), Date.UTC(2026, 2, 9, 6, 30), 'hourly', 'netcdf');
 
-    expect(new Date(fromMs).toISOString()).toBe('2026-03-02T00:00:00.000Z');
-    expect(new Date(toMs).toISOString()).toBe('2026-03-03T00:00:00.000Z');
+    expect(name).toBe('isallo-KRO-S_B-20260302T0000Z-20260309T0630Z-hourly.nc');
   });
 });

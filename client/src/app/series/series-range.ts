@@ -1,14 +1,3 @@
-const DAY_MS = 24 * 60 * 60 * 1000;
-
-/** A station series request: the station and the UTC days from and to, both included. */
-export interface SeriesRange {
-  stationId: string;
-  /** YYYY-MM-DD, UTC day. */
-  fromDay: string;
-  /** YYYY-MM-DD, UTC day, included. */
-  toDay: string;
-}
-
 /** Reads a UTC day typed as YYYY-MM-DD; epoch ms of its midnight, or null for anything else. */
 export function parseUtcDay(text: string): number | null {
   const match = /^(\d{4})-(\d{2})-(\d{2})$/.exec(text.trim());
@@ -18,16 +7,11 @@ export function parseUtcDay(text: string): number | null {
   return new Date(ms).toISOString().slice(0, 10) === text.trim() ? ms : null;
 }
 
-/** The instants the range covers: from midnight of fromDay up to (not including) midnight after toDay. */
-export function rangeInstantsMs(range: SeriesRange): [number, number] {
-  const fromMs = parseUtcDay(range.fromDay);
-  const toMs = parseUtcDay(range.toDay);
-  if (fromMs === null || toMs === null) throw new Error(`not a UTC day range: ${range.fromDay}..${range.toDay}`);
-  return [fromMs, toMs + DAY_MS];
-}
+const FILE_EXTENSIONS = { csv: 'csv', netcdf: 'nc', json: 'json' } as const;
 
-/** File name for a station series export, e.g. `isallo-KRO-2026-03-02-2026-03-09.csv`. */
-export function seriesCsvFileName(stationCode: string, fromDay: string, toDay: string): string {
-  const safeCode = stationCode.replace(/[^A-Za-z0-9_-]/g, '_');
-  return `isallo-${safeCode}-${fromDay}-${toDay}.csv`;
+/** File name for a download of the visible range, e.g. `isallo-KRO-SBS-20260302T0000Z-20260309T0000Z-hourly.csv`. */
+export function seriesFileName(stationCodes: readonly string[], fromMs: number, toMs: number, step: string, format: keyof typeof FILE_EXTENSIONS): string {
+  const stamp = (ms: number) => new Date(ms).toISOString().slice(0, 16).replace(/[-:]/g, '') + 'Z';
+  const codes = stationCodes.map((code) => code.replace(/[^A-Za-z0-9_-]/g, '_')).join('-');
+  return `isallo-${codes}-${stamp(fromMs)}-${stamp(toMs)}-${step}.${FILE_EXTENSIONS[format]}`;
 }

@@ -13,7 +13,7 @@ import { switchMap, tap } from 'rxjs';
 
 import { ApiError } from '../../core/http/api-error';
 import { saveBlob } from '../../shared/object-url/object-url';
-import { ChartRegionFigure, type RegionMark } from '../chart-region-figure/chart-region-figure';
+import { ChartRegionFigure, type RegionMark } from '../../shared/chart-region-figure/chart-region-figure';
 import { type LessonChange, LessonsApi } from '../lessons-api';
 import { LessonPlot } from '../lesson-plot/lesson-plot';
 import { derivedText, formatUtc, kindLabel, noteWhen, passageAltText, toMinuteIso } from '../lesson-text';

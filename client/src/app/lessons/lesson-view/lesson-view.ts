@@ -6,7 +6,7 @@ import type { ChartRegion, FrontNoteKind, NoteDerivedValues, Question } from '@s
 import type { SeriesPoint } from '@shared/api/series';
 import { map } from 'rxjs';
 
-import { ChartRegionFigure, type RegionMark } from '../chart-region-figure/chart-region-figure';
+import { ChartRegionFigure, type RegionMark } from '../../shared/chart-region-figure/chart-region-figure';
 import { LessonPlot } from '../lesson-plot/lesson-plot';
 import { derivedText, formatUtc, kindLabel, noteWhen, passageAltText } from '../lesson-text';
 
