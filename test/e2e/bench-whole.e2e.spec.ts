@@ -100,7 +100,7 @@ describe('the Bench, whole', () => {
     await page.getByTestId('nav-desk').click();
     const effort = new Effort(page);
 
-    // Act 1, Pin: Next chart claims it, then four crossings, each time and pressure typed, Enter saves.
+    // Act 1, Pin: Next chart claims it, then four crossings; each comes pre-filled from the printed lines, Enter saves.
     await page.getByTestId('next-chart').click();
     await page.locator(`[data-testid="desk-claim"][data-scan-id="${scanId}"]`).waitFor();
     await page.getByTestId('claim-open').click();
@@ -109,8 +109,8 @@ describe('the Bench, whole', () => {
     let view = await readStageView(page);
     for (const pin of json.pins.slice(0, 4)) {
       await effort.clickAt(toScreen(view, pin));
-      await effort.type('pin-time', typed(pin.time));
-      await effort.type('pin-pressure', String(pin.pressure));
+      await expectValue(page, 'pin-time', typed(pin.time));
+      await expectValue(page, 'pin-pressure', String(pin.pressure));
       await effort.press('Enter');
     }
     await page.locator('[data-testid="save-state"][data-state="saved"]').waitFor();
@@ -188,6 +188,15 @@ describe('the Bench, whole', () => {
     await page.close();
   });
 });
+
+/** Waits until the field shows the value (the Pin step fills it in a render after the click). */
+async function expectValue(page: Page, testId: string, value: string): Promise<void> {
+  await page.waitForFunction(
+    ([id, expected]) => (document.querySelector(`[data-testid="${id}"]`) as HTMLInputElement | null)?.value === expected,
+    [testId, value] as const,
+    { timeout: 5_000 },
+  );
+}
 
 async function expectCount(page: Page, testId: string, count: number): Promise<void> {
   await page.waitForFunction(([id, n]) => document.querySelectorAll(`[data-testid="${id}"]`).length === n, [testId, count] as const);

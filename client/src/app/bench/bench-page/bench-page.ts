@@ -12,6 +12,7 @@ import { catchError, map, of, switchMap } from 'rxjs';
 
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ScansApi } from '../../core/api/scans-api';
+import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { ObjectUrlHolder } from '../../shared/object-url/object-url';
 import { BenchState, type BenchStep } from '../bench-state';
@@ -20,13 +21,15 @@ import { HandInResult } from '../hand-in-result/hand-in-result';
 import { InkLinesApi } from '../ink-lines-api';
 import { InkStep } from '../ink-step/ink-step';
 import { MarksStep } from '../marks-step/marks-step';
-import { PinStep } from '../pin-step/pin-step';
+import { type PinScan, PinStep } from '../pin-step/pin-step';
+import type { StationClock } from '../pin-step/pin-time-lines';
 import { ProofStep } from '../proof-step/proof-step';
 import { ScanStage } from '../scan-stage/scan-stage';
 import type { Size } from '../scan-stage/view-transform';
 
 /** Longest side of the image the Bench shows, px: sharp enough to click on, light enough to pan. */
 const BENCH_IMAGE_SIDE_PX = 2400;
+const UTC_CLOCK: StationClock = { timeZone: 'UTC', timeStandard: 'utc' };
 
 interface HandInProblem {
   message: string;
@@ -50,6 +53,7 @@ export class BenchPage {
   private readonly scansApi = inject(ScansApi);
   private readonly inkLinesApi = inject(InkLinesApi);
   private readonly chartFormsApi = inject(ChartFormsApi);
+  private readonly stationsApi = inject(StationsApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly previewUrls = new ObjectUrlHolder(this.destroyRef);
   protected readonly state = inject(BenchState);
@@ -96,6 +100,25 @@ export class BenchPage {
     ),
   );
   protected readonly chartForm = computed(() => this.chartFormResult()?.form ?? null);
+  /** The station's clock, for showing times as its observers wrote them; UTC until (or unless) the station is known. */
+  protected readonly stationClock = toSignal(
+    toObservable(computed(() => this.scan()?.stationId ?? null)).pipe(
+      switchMap((stationId) =>
+        stationId === null
+          ? of(UTC_CLOCK)
+          : this.stationsApi.get(stationId).pipe(
+              map((station): StationClock => ({ timeZone: station.timeZone, timeStandard: station.timeStandard })),
+              // The clock only labels the time lines; without the station they are labelled in UTC.
+              catchError(() => of(UTC_CLOCK)),
+            ),
+      ),
+    ),
+    { initialValue: UTC_CLOCK },
+  );
+  protected readonly pinScan = computed((): PinScan | null => {
+    const scan = this.scan();
+    return scan ? { widthPx: scan.widthPx, heightPx: scan.heightPx, dpi: scan.dpi, chartStart: scan.chartStart } : null;
+  });
   protected readonly chartFormFailure = computed(() => this.chartFormResult()?.failure ?? null);
 
   /** The volunteer's own line as the server had it when the Bench opened; undefined while loading. */
