@@ -107,11 +107,20 @@ describe('the Bench, whole', () => {
     effort.clicks += 2;
     await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
     let view = await readStageView(page);
-    for (const pin of json.pins.slice(0, 4)) {
+    for (const [index, pin] of json.pins.slice(0, 4).entries()) {
       await effort.clickAt(toScreen(view, pin));
       await expectValue(page, 'pin-time', typed(pin.time));
       await expectValue(page, 'pin-pressure', String(pin.pressure));
       await effort.press('Enter');
+      await expectCount(page, 'pin-row', index + 1);
+      // The ghost grid comes with the third pin, and each pin then shows its residual; none of these is off.
+      const gridLines = Number((await page.getByTestId('scan-stage').getAttribute('data-ghost-grid-lines')) ?? 0);
+      if (index < 2) expect(gridLines).toBe(0);
+      else {
+        await page.waitForFunction(() => Number(document.querySelector('[data-testid="scan-stage"]')?.getAttribute('data-ghost-grid-lines')) > 0);
+        await expectCount(page, 'pin-residual', index + 1);
+        expect(await page.locator('[data-testid="pin-residual"][data-outlier="true"]').count()).toBe(0);
+      }
     }
     await page.locator('[data-testid="save-state"][data-state="saved"]').waitFor();
 

@@ -8,6 +8,7 @@ import { RouterLink } from '@angular/router';
 import { type InkLineSaved, type MyInkLine, parseInkLineDraft } from '@shared/api/ink-lines';
 import type { ChartFormSummary } from '@shared/api/chart-forms';
 import type { ScanDetail } from '@shared/api/scans';
+import { checkPins, type PinsCheck } from '@shared/domain/ghost-grid';
 import { catchError, map, of, switchMap } from 'rxjs';
 
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
@@ -24,6 +25,7 @@ import { MarksStep } from '../marks-step/marks-step';
 import { type PinScan, PinStep } from '../pin-step/pin-step';
 import type { StationClock } from '../pin-step/pin-time-lines';
 import { ProofStep } from '../proof-step/proof-step';
+import { toRegistrationPins } from '../registration-pins';
 import { ScanStage } from '../scan-stage/scan-stage';
 import type { Size } from '../scan-stage/view-transform';
 
@@ -115,6 +117,21 @@ export class BenchPage {
     ),
     { initialValue: UTC_CLOCK },
   );
+  /** The pins checked against the grid fitted to them, live: residuals, outliers and the ghost grid. */
+  protected readonly pinsCheck = computed((): PinsCheck => {
+    const form = this.chartForm();
+    const chartStart = this.scan()?.chartStart;
+    if (!form || !chartStart) return { kind: 'too_few' };
+    return checkPins(form, toRegistrationPins(this.state.pins(), Date.parse(chartStart)));
+  });
+  protected readonly ghostGrid = computed(() => {
+    const check = this.pinsCheck();
+    return check.kind === 'fitted' && this.state.step() === 'pin' ? check.grid : null;
+  });
+  protected readonly outlierPins = computed(() => {
+    const check = this.pinsCheck();
+    return check.kind === 'fitted' ? check.pins.flatMap((pin, index) => (pin.isOutlier ? [index] : [])) : [];
+  });
   protected readonly pinScan = computed((): PinScan | null => {
     const scan = this.scan();
     return scan ? { widthPx: scan.widthPx, heightPx: scan.heightPx, dpi: scan.dpi, chartStart: scan.chartStart } : null;

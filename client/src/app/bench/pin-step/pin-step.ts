@@ -7,12 +7,14 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import type { ChartForm } from '@shared/domain/chart-form';
+import type { PinsCheck } from '@shared/domain/ghost-grid';
 import { prefillPin, stepPressureLine, stepTimeLine } from '@shared/domain/pin-prefill';
 import type { PressureUnit } from '@shared/domain/pressure-units';
 import type { StationTimeStandard } from '@shared/domain/station-time';
 
 import { normalizeInstant, parseInstantMs } from '@shared/api/parse-instant';
 import { BenchState } from '../bench-state';
+import { toRegistrationPins } from '../registration-pins';
 import { PinTimeLines, type StationClock } from './pin-time-lines';
 
 const HOUR_MS = 3_600_000;
@@ -25,6 +27,13 @@ function utcInstantValidator(control: AbstractControl<string>): ValidationErrors
 function typedUtc(ms: number): string {
   const iso = new Date(ms).toISOString();
   return `${iso.slice(0, 10)} ${iso.slice(11, 16)}`;
+}
+
+/** "+0.2", "−3": a residual with its sign, for the pin list. */
+function signed(value: number, digits: number): string {
+  const text = Math.abs(value).toFixed(digits);
+  if (Number(text) === 0) return (0).toFixed(digits);
+  return `${value > 0 ? '+' : '−'}${text}`;
 }
 
 /** What the Pin step needs of the scan to read a click: its size, dpi and chart start. */
@@ -58,6 +67,9 @@ export class PinStep {
   /** The station's zone and time standard, for showing the time lines as its observers read them. */
   readonly clock = input<StationClock>({ timeZone: 'UTC', timeStandard: 'utc' as StationTimeStandard });
 
+  /** The live check of the pins against the grid fitted to them (residuals, outliers). */
+  readonly check = input<PinsCheck>({ kind: 'too_few' });
+
   private readonly timeInput = viewChild<ElementRef<HTMLInputElement>>('timeInput');
 
   protected readonly entry = inject(NonNullableFormBuilder).group({
@@ -78,7 +90,7 @@ export class PinStep {
     const scan = this.scan();
     const chartStartMs = this.chartStartMs();
     if (!crossing || !form || !scan || chartStartMs === null) return null;
-    const pins = this.state.pins().map((pin) => ({ xPx: pin.xPx, yPx: pin.yPx, pressure: pin.pressure, hours: (Date.parse(pin.time) - chartStartMs) / HOUR_MS }));
+    const pins = toRegistrationPins(this.state.pins(), chartStartMs);
     return prefillPin({ form, scanWidthPx: scan.widthPx, scanHeightPx: scan.heightPx, dpi: scan.dpi, pins, click: crossing });
   });
 
@@ -88,6 +100,18 @@ export class PinStep {
     const chartStartMs = this.chartStartMs();
     return prefill && chartStartMs !== null ? prefill.nearbyHours.map((hours) => chartStartMs + hours * HOUR_MS) : [];
   });
+  /** Each pin's residual as shown beside it ("+0.2 hPa · −3 min"), and whether it is off the others. */
+  protected readonly pinResiduals = computed(() => {
+    const check = this.check();
+    if (check.kind !== 'fitted') return [];
+    return check.pins.map((pin) => ({ text: `${signed(pin.pressureHpa, 1)} hPa · ${signed(pin.minutes, 0)} min`, isOutlier: pin.isOutlier }));
+  });
+
+  protected readonly checkProblem = computed(() => {
+    const check = this.check();
+    return check.kind === 'problem' ? check.message : null;
+  });
+
   /** The instant in the time field, or null while it does not read as one. */
   protected readonly chosenMs = computed(() => parseInstantMs(this.typedTime()));
 

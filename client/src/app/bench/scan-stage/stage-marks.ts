@@ -10,6 +10,8 @@ const INK_CYAN = 'hsl(188, 100%, 42%)';
 // Doubtful stretches (dashed orange) and gaps (red brackets, drawn as in every plot), as the Look asks.
 const LOW_CONFIDENCE_ORANGE = 'hsl(24, 100%, 50%)';
 const OUTLINE = 'rgba(20, 30, 30, 0.85)';
+// A pin off the others: the warning red of Material's error role, as a ring (amber stays the pin's own colour).
+const OUTLIER_RED = 'hsl(0, 75%, 45%)';
 /** Below this confidence a followed stretch is drawn as doubtful, for the volunteer to check. */
 export const LOW_CONFIDENCE = 0.5;
 /** Closest two followed knots' handles are drawn on screen, px; zoom in to reach the ones between. */
@@ -27,6 +29,8 @@ export interface Marks {
   screenPxPerPreviewPx: number;
   /** Ink step: knots can be dragged (moved) and right-clicked (deleted). */
   areKnotsEditable: boolean;
+  /** Pins off the others (by index): a red warning ring round the amber pin. */
+  outlierPins: ReadonlySet<number>;
 }
 
 export interface KnotEdits {
@@ -85,6 +89,9 @@ export function drawMarks(layer: Konva.Layer, marks: Marks, edits?: KnotEdits): 
 
   marks.pins.forEach((pin, index) => {
     const point = toPreview(pin);
+    if (marks.outlierPins.has(index)) {
+      layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 10 * unit, stroke: OUTLIER_RED, strokeWidth: 2.5 * unit, listening: false }));
+    }
     layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 6 * unit, fill: PIN_AMBER, stroke: OUTLINE, strokeWidth: unit, listening: false }));
     layer.add(new Konva.Text({ x: point.x + 8 * unit, y: point.y - 16 * unit, text: String(index + 1), fontSize: 13 * unit, fontStyle: 'bold', fill: OUTLINE, listening: false }));
   });
