@@ -130,6 +130,13 @@ describe('the Bench, whole', () => {
     await expectCount(page, 'pin-row', 4);
     await page.locator('[data-testid="save-state"][data-state="saved"]').waitFor();
 
+    // The shortcuts' help opens with ? and closes with Esc (a look, not part of the volunteer's count).
+    await page.keyboard.press('?');
+    await page.getByTestId('shortcut-help').waitFor();
+    expect(await page.getByTestId('shortcut-row').count()).toBeGreaterThan(10);
+    await page.keyboard.press('Escape');
+    await page.getByTestId('shortcut-help').waitFor({ state: 'detached' });
+
     // Act 2, Ink: Follow ink finds the line.
     await effort.click('mode-ink');
     await effort.click('follow-ink');

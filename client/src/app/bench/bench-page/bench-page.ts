@@ -1,5 +1,5 @@
 import { DatePipe, KeyValuePipe } from '@angular/common';
-import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, input, signal, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, effect, inject, input, signal, untracked, viewChild } from '@angular/core';
 import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
@@ -16,6 +16,7 @@ import { ScansApi } from '../../core/api/scans-api';
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { ObjectUrlHolder } from '../../shared/object-url/object-url';
+import { actionForKey, type BenchAction, isTypingTarget } from '../bench-shortcuts';
 import { BenchState, type BenchStep } from '../bench-state';
 import { DraftSaver } from '../draft-saver';
 import { HandInResult } from '../hand-in-result/hand-in-result';
@@ -27,6 +28,7 @@ import type { StationClock } from '../pin-step/pin-time-lines';
 import { ProofStep } from '../proof-step/proof-step';
 import { toRegistrationPins } from '../registration-pins';
 import { ScanStage } from '../scan-stage/scan-stage';
+import { ShortcutHelp } from '../shortcut-help/shortcut-help';
 import type { Size } from '../scan-stage/view-transform';
 
 /** Longest side of the image the Bench shows, px: sharp enough to click on, light enough to pan. */
@@ -45,11 +47,12 @@ interface HandInProblem {
  */
 @Component({
   selector: 'isl-bench-page',
-  imports: [DatePipe, KeyValuePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ScanStage, PinStep, InkStep, MarksStep, ProofStep, HandInResult],
+  imports: [DatePipe, KeyValuePipe, RouterLink, MatButtonModule, MatIconModule, MatProgressBarModule, ScanStage, PinStep, InkStep, MarksStep, ProofStep, HandInResult, ShortcutHelp],
   providers: [BenchState, DraftSaver],
   templateUrl: './bench-page.html',
   styleUrl: './bench-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
+  host: { '(document:keydown)': 'runShortcut($event)' },
 })
 export class BenchPage {
   private readonly scansApi = inject(ScansApi);
@@ -63,6 +66,11 @@ export class BenchPage {
 
   /** From the route parameter. */
   readonly scanId = input.required<string>();
+
+  private readonly stage = viewChild(ScanStage);
+  private readonly inkStep = viewChild(InkStep);
+  /** The keyboard shortcuts' help panel, opened with `?`. */
+  protected readonly isHelpOpen = signal(false);
 
   private readonly scanResult = toSignal(
     toObservable(this.scanId).pipe(
@@ -187,6 +195,38 @@ export class BenchPage {
   protected readonly isHandingIn = signal(false);
   protected readonly saved = signal<InkLineSaved | null>(null);
   protected readonly problem = signal<HandInProblem | null>(null);
+
+  /** A key press anywhere on the page: the Bench's shortcut for it, unless the key is typed into a field. */
+  protected runShortcut(event: KeyboardEvent): void {
+    const action = actionForKey(event);
+    if (action === null || event.defaultPrevented) return;
+    if (isTypingTarget(event.target) && action !== 'cancel') return;
+    if (this.runAction(action)) event.preventDefault();
+  }
+
+  /** Does what a shortcut asks; false when it does not apply here (read-only, wrong step), so the key passes on. */
+  private runAction(action: BenchAction): boolean {
+    const steps: Partial<Record<BenchAction, BenchStep>> = { 'step-pin': 'pin', 'step-ink': 'ink', 'step-marks': 'marks', 'step-proof': 'proof' };
+    const step = steps[action];
+    if (action === 'help') this.isHelpOpen.update((isOpen) => !isOpen);
+    else if (action === 'zoom-in') this.stage()?.zoomIn();
+    else if (action === 'zoom-out') this.stage()?.zoomOut();
+    else if (action === 'zoom-fit') this.stage()?.fitToHost();
+    else if (action === 'cancel') {
+      if (!this.isHelpOpen() && this.state.pendingPin() === null && this.state.stretchStart() === null) return false;
+      this.isHelpOpen.set(false);
+      this.state.cancelPick();
+    } else if (this.isReadOnly()) return false;
+    else if (step) this.state.chooseStep(step);
+    else if (action === 'undo') this.state.undo();
+    else if (action === 'redo') this.state.redo();
+    else if (this.state.step() !== 'ink') return false;
+    else if (action === 'follow-ink') this.inkStep()?.followInk();
+    else if (action === 'tool-knot') this.state.chooseInkTool('knot');
+    else if (action === 'tool-lift') this.state.chooseInkTool('lift');
+    else if (action === 'tool-bridge') this.state.chooseInkTool('bridge');
+    return true;
+  }
 
   protected chooseStep(step: BenchStep): void {
     this.state.chooseStep(step);

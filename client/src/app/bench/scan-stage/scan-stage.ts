@@ -55,6 +55,8 @@ export class ScanStage {
   readonly ghostGrid = input<readonly GhostGridLine[] | null>(null);
   /** Pins (by index) off the others: drawn with a warning ring. */
   readonly outlierPins = input<readonly number[]>([]);
+  /** Lift or Bridge: the knot picked as a stretch's first end, ringed; null when none. */
+  readonly stretchStart = input<number | null>(null);
   /** Ink step: knots can be dragged to correct them and right-clicked to delete them. */
   readonly areKnotsEditable = input(false);
   /** The preview's natural size, once loaded. */
@@ -94,6 +96,7 @@ export class ScanStage {
       // Read every input the marks depend on, so the effect re-runs when any of them changes.
       this.areKnotsEditable();
       this.outlierPins();
+      this.stretchStart();
       this.redrawMarks(this.currentMarks());
     });
   }
@@ -239,6 +242,7 @@ export class ScanStage {
         screenPxPerPreviewPx: this.stage.scaleX(),
         areKnotsEditable: this.areKnotsEditable(),
         outlierPins: new Set(this.outlierPins()),
+        stretchStart: this.stretchStart(),
       },
       this.knotEdits,
     );

@@ -31,6 +31,8 @@ export interface Marks {
   areKnotsEditable: boolean;
   /** Pins off the others (by index): a red warning ring round the amber pin. */
   outlierPins: ReadonlySet<number>;
+  /** Lift or Bridge: the knot picked as the stretch's first end (a ring), or null. */
+  stretchStart: number | null;
 }
 
 export interface KnotEdits {
@@ -39,11 +41,15 @@ export interface KnotEdits {
   deleted(index: number): void;
 }
 
-type SegmentStyle = 'sure' | 'doubtful' | 'gap';
+type SegmentStyle = 'sure' | 'doubtful' | 'gap' | 'bridge';
 
-/** How the stretch from knot i to knot i + 1 is drawn: a gap is not drawn (its ends get brackets); a weak end makes it doubtful. */
+/**
+ * How the stretch from knot i to knot i + 1 is drawn: a gap is not drawn (its ends get brackets); a bridge is
+ * dotted cyan (joined on purpose, no ink read); a weak end makes it doubtful.
+ */
 export function segmentStyle(from: BenchKnot, to: BenchKnot): SegmentStyle {
   if (from.gapAfter) return 'gap';
+  if (from.bridgeAfter) return 'bridge';
   return Math.min(from.confidence ?? 1, to.confidence ?? 1) < LOW_CONFIDENCE ? 'doubtful' : 'sure';
 }
 
@@ -87,6 +93,11 @@ export function drawMarks(layer: Konva.Layer, marks: Marks, edits?: KnotEdits): 
     layer.add(knot);
   });
 
+  if (marks.stretchStart !== null && knotPoints[marks.stretchStart]) {
+    const point = knotPoints[marks.stretchStart];
+    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 8 * unit, stroke: INK_CYAN, strokeWidth: 2.5 * unit, listening: false }));
+  }
+
   marks.pins.forEach((pin, index) => {
     const point = toPreview(pin);
     if (marks.outlierPins.has(index)) {
@@ -118,9 +129,9 @@ function drawInkLine(layer: Konva.Layer, knots: readonly BenchKnot[], points: { 
       layer.add(
         new Konva.Line({
           points: run,
-          stroke: style === 'sure' ? INK_CYAN : LOW_CONFIDENCE_ORANGE,
+          stroke: style === 'doubtful' ? LOW_CONFIDENCE_ORANGE : INK_CYAN,
           strokeWidth: 2 * unit,
-          dash: style === 'doubtful' ? [6 * unit, 4 * unit] : undefined,
+          dash: style === 'doubtful' ? [6 * unit, 4 * unit] : style === 'bridge' ? [1.5 * unit, 3 * unit] : undefined,
           lineJoin: 'round',
           lineCap: 'round',
           listening: false,
