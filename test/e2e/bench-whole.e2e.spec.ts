@@ -109,6 +109,8 @@ describe('the Bench, whole', () => {
     let view = await readStageView(page);
     for (const [index, pin] of json.pins.slice(0, 4).entries()) {
       await effort.clickAt(toScreen(view, pin));
+      // The click is snapped to the printed crossing found in the scan, and says so.
+      await page.getByTestId('pin-snapped').waitFor();
       await expectValue(page, 'pin-time', typed(pin.time));
       await expectValue(page, 'pin-pressure', String(pin.pressure));
       await effort.press('Enter');
@@ -187,6 +189,11 @@ describe('the Bench, whole', () => {
         parseTruthCsv(chart.truthCsv),
       );
       console.log(`Bench hand-in: ${points.length} points, RMSE ${score.rmseHpa.toFixed(3)} hPa against the truth; ${clockText}; ${instrumentText}`);
+      // Snapped pins sit on the printed crossings to a fraction of a pixel, though a click lands only to a screen pixel (≈ 1.7 scan px here).
+      const pinMissesPx = (line.work.pins ?? []).map((stored, i) => Math.hypot(stored.xPx - json.pins[i].xPx, stored.yPx - json.pins[i].yPx));
+      console.log(`Bench pins: snapped ${pinMissesPx.map((miss) => miss.toFixed(2)).join(', ')} px from the true crossings`);
+      expect(pinMissesPx).toHaveLength(4);
+      expect(Math.max(...pinMissesPx)).toBeLessThan(0.5);
       expect(line.status).toBe('handed_in');
       expect(line.work.timeMarks).toHaveLength(markFeet.length);
       expect(clockText).not.toMatch(/not corrected/);

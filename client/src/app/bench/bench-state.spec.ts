@@ -236,6 +236,17 @@ describe('BenchState', () => {
     expect(state.work().knots[1].bridgeAfter).toBe(true);
   });
 
+  it('when a crossing is picked snapped, then the snap distance is kept in scan pixels; a later plain pick clears it', () => {
+    state.setPreviewWidth(3000, 1500);
+
+    state.pickPoint({ x: 10, y: 20 }, 0.8);
+    const snappedPx = state.pendingSnapPx();
+    state.pickPoint({ x: 12, y: 20 });
+
+    expect(snappedPx).toBeCloseTo(1.6, 6);
+    expect(state.pendingSnapPx()).toBeNull();
+  });
+
   it('when nothing has changed, then undo does nothing', () => {
     state.undo();
 

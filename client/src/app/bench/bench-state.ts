@@ -49,12 +49,18 @@ export class BenchState {
   private readonly chartOffValue = signal<string | null>(null);
   private readonly checkReadingList = signal<readonly WorkCheckReading[]>([]);
   private readonly scanPxPerPreviewPxValue = signal<number | null>(null);
+  private readonly isSnapOnValue = signal(true);
+  private readonly pendingSnapValue = signal<number | null>(null);
 
   readonly step = this.stepValue.asReadonly();
   readonly pins = this.pinList.asReadonly();
   readonly knots = this.knotList.asReadonly();
   /** The grid crossing picked in the Pin step, waiting for its time and pressure. */
   readonly pendingPin = this.pendingCrossing.asReadonly();
+  /** Pin step: a click near a printed crossing moves to the crossing found in the image (the volunteer may turn it off). */
+  readonly isSnapOn = this.isSnapOnValue.asReadonly();
+  /** How far the picked crossing was moved from the click to the printed crossing, scan px; null: not snapped. */
+  readonly pendingSnapPx = this.pendingSnapValue.asReadonly();
   /** Full-resolution scan pixels per preview pixel; null until the preview has loaded. */
   readonly scanPxPerPreviewPx = this.scanPxPerPreviewPxValue.asReadonly();
   readonly knotCount = computed(() => this.knotList().length);
@@ -150,9 +156,18 @@ export class BenchState {
     return { xPx: previewPoint.x * scale, yPx: previewPoint.y * scale };
   }
 
-  /** A click on the preview: picks the next pin's crossing (Pin), adds a knot (Ink) or a time mark (Marks). */
-  pickPoint(previewPoint: { x: number; y: number }): void {
+  turnSnap(isOn: boolean): void {
+    this.isSnapOnValue.set(isOn);
+  }
+
+  /**
+   * A click on the preview: picks the next pin's crossing (Pin), adds a knot (Ink) or a time mark (Marks).
+   * `snappedFromPx` says the Pin step's point is a printed crossing found this far from the click (preview px).
+   */
+  pickPoint(previewPoint: { x: number; y: number }, snappedFromPx: number | null = null): void {
     const point = this.toScanPoint(previewPoint);
+    const scale = this.scanPxPerPreviewPxValue() ?? 1;
+    this.pendingSnapValue.set(this.stepValue() === 'pin' && snappedFromPx !== null ? snappedFromPx * scale : null);
     if (this.stepValue() === 'pin') this.pendingCrossing.set(point);
     else if (this.stepValue() === 'ink' && this.inkToolValue() === 'knot') this.addKnot(point);
     else if (this.stepValue() === 'ink') this.pickStretchEnd(point);

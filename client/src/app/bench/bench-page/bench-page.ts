@@ -8,6 +8,7 @@ import { RouterLink } from '@angular/router';
 import { type InkLineSaved, type MyInkLine, parseInkLineDraft } from '@shared/api/ink-lines';
 import type { ChartFormSummary } from '@shared/api/chart-forms';
 import type { ScanDetail } from '@shared/api/scans';
+import { snapToCrossing } from '@shared/domain/crossing-snap';
 import { checkPins, type PinsCheck } from '@shared/domain/ghost-grid';
 import { catchError, map, of, switchMap } from 'rxjs';
 
@@ -23,6 +24,7 @@ import { HandInResult } from '../hand-in-result/hand-in-result';
 import { InkLinesApi } from '../ink-lines-api';
 import { InkStep } from '../ink-step/ink-step';
 import { MarksStep } from '../marks-step/marks-step';
+import { PreviewPixels } from '../preview-pixels';
 import { type PinScan, PinStep } from '../pin-step/pin-step';
 import type { StationClock } from '../pin-step/pin-time-lines';
 import { ProofStep } from '../proof-step/proof-step';
@@ -33,6 +35,8 @@ import type { Size } from '../scan-stage/view-transform';
 
 /** Longest side of the image the Bench shows, px: sharp enough to click on, light enough to pan. */
 const BENCH_IMAGE_SIDE_PX = 2400;
+/** How far from a click (preview px) the Pin step looks for the printed crossing to snap to: a few grid lines' width. */
+const SNAP_RADIUS_PREVIEW_PX = 6;
 const UTC_CLOCK: StationClock = { timeZone: 'UTC', timeStandard: 'utc' };
 
 interface HandInProblem {
@@ -61,6 +65,7 @@ export class BenchPage {
   private readonly stationsApi = inject(StationsApi);
   private readonly destroyRef = inject(DestroyRef);
   private readonly previewUrls = new ObjectUrlHolder(this.destroyRef);
+  private readonly previewPixels = new PreviewPixels();
   protected readonly state = inject(BenchState);
   protected readonly saver = inject(DraftSaver);
 
@@ -177,6 +182,11 @@ export class BenchPage {
         },
         error: (error: unknown) => this.loadFailure.set(error instanceof ApiError ? error.message : 'Your draft could not be loaded.'),
       });
+    // The image's pixels, for snapping a pin's click to the printed crossing; without them a click is taken as it is.
+    effect(() => {
+      const url = this.previewUrl();
+      if (url) this.previewPixels.load(url).catch(() => undefined);
+    });
     // Autosave: every change to the work after the draft was loaded.
     let isFirstRun = true;
     effect(() => {
@@ -238,7 +248,10 @@ export class BenchPage {
   }
 
   protected pickPoint(point: { x: number; y: number }): void {
-    if (this.state.scanPxPerPreviewPx() !== null && !this.isReadOnly()) this.state.pickPoint(point);
+    if (this.state.scanPxPerPreviewPx() === null || this.isReadOnly()) return;
+    const image = this.previewPixels.image;
+    const snapped = this.state.step() === 'pin' && this.state.isSnapOn() && image ? snapToCrossing(image, point, { radiusPx: SNAP_RADIUS_PREVIEW_PX }) : null;
+    this.state.pickPoint(snapped ?? point, snapped?.distancePx ?? null);
   }
 
   protected moveKnot(move: { index: number; point: { x: number; y: number } }): void {

@@ -6,6 +6,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import type { ChartForm } from '@shared/domain/chart-form';
 import type { PinsCheck } from '@shared/domain/ghost-grid';
 import { prefillPin, stepPressureLine, stepTimeLine } from '@shared/domain/pin-prefill';
@@ -51,7 +52,7 @@ export interface PinScan {
  */
 @Component({
   selector: 'isl-pin-step',
-  imports: [DecimalPipe, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, PinTimeLines],
+  imports: [DecimalPipe, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatButtonModule, MatIconModule, MatSlideToggleModule, PinTimeLines],
   templateUrl: './pin-step.html',
   styleUrl: './pin-step.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
