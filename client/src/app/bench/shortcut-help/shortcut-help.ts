@@ -31,9 +31,9 @@ import { BENCH_SHORTCUTS } from '../bench-shortcuts';
     .top { display: flex; align-items: center; justify-content: space-between; }
     .heading { font: var(--mat-sys-title-medium); margin: 0; }
     .list { margin: 4px 0; font: var(--mat-sys-body-medium); }
-    .row { display: grid; grid-template-columns: 9.5em 1fr; gap: 8px; padding: 2px 0; }
+    .row { display: grid; grid-template-columns: 6.5em 1fr; gap: 8px; padding: 2px 0; }
     dd { margin: 0; }
-    kbd { font: var(--mat-sys-label-medium); padding: 0 4px; border: 1px solid var(--mat-sys-outline); border-radius: 3px; }
+    kbd { display: inline-block; font: var(--mat-sys-label-medium); padding: 0 4px; border: 1px solid var(--mat-sys-outline); border-radius: 3px; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
