@@ -144,6 +144,7 @@ describe('the Bench, whole', () => {
     await effort.click('follow-ink');
     await page.getByTestId('follow-ink-result').waitFor();
 
+    const beforeMarks = effort.clicks + effort.keystrokes;
     // Act 3, Marks: each time mark's foot and its true time, chart on / chart off, one check reading per mark.
     view = await readStageView(page);
     await effort.click('mode-marks');
@@ -164,6 +165,7 @@ describe('the Bench, whole', () => {
     }
     await expectCount(page, 'check-row', json.checkReadings.length);
 
+    const inMarks = effort.clicks + effort.keystrokes - beforeMarks;
     // Act 4, Proof and Hand in.
     await effort.click('mode-proof');
     await page.getByTestId('proof-checklist').waitFor();
@@ -172,7 +174,8 @@ describe('the Bench, whole', () => {
     await result.waitFor();
     const clockText = await page.getByTestId('hand-in-clock').innerText();
     const instrumentText = await page.getByTestId('hand-in-instrument').innerText();
-    console.log(`Bench effort, Desk to Hand in: ${effort.clicks} clicks + ${effort.keystrokes} keystrokes = ${effort.clicks + effort.keystrokes}`);
+    const total = effort.clicks + effort.keystrokes;
+    console.log(`Bench effort, Desk to Hand in: ${effort.clicks} clicks + ${effort.keystrokes} keystrokes = ${total} (Marks step ${inMarks}, the rest ${total - inMarks})`);
 
     // Assert: the stored series of the volunteer's line, against the generator's truth.
     const db = createDb(databaseUrl, 1);

@@ -25,8 +25,7 @@ export interface StationClock {
           (click)="chosen.emit(line.ms)"
           data-testid="pin-time-line"
         >
-          <span class="station">{{ line.station }}</span>
-          <span class="utc">{{ line.utc }}</span>
+          <span class="station">{{ line.station }}</span>&ngsp;<span class="utc">{{ line.utc }}</span>
         </button>
       }
     </div>
