@@ -3,6 +3,7 @@ import { type BenchWork, EMPTY_BENCH_WORK } from '@shared/api/bench-work';
 import type { DraftSaved, MyInkLine, MyInkLineSummary } from '@shared/api/ink-lines';
 import type { Page } from '@shared/api/paging';
 import { API } from '@shared/api/routes';
+import { bridgeStretch, liftStretch } from '@shared/domain/knot-edits';
 import { createChartForm, createPerson, createScanRow, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 import { SYNTHETIC_ERRORS, syntheticDraft, syntheticDraftWithErrors, syntheticPressureHpa } from '../helpers/trace';
@@ -196,6 +197,40 @@ describe('drafts on the server', () => {
     expect(row.knots).toHaveLength(body.knots.length);
     expect(row.result?.corrections.checkReadingUses).toEqual(['used', 'used', 'used']);
     expect(await context.db.selectFrom('ink_line').select('id').execute()).toHaveLength(1);
+  });
+
+  it('when a lifted stretch and a bridged skip are handed in, then the stored line keeps both and the series has a gap there and an interpolated value here', async () => {
+    // Knots every 10 min from 2 h to 26 h (test/helpers/trace.ts): lift 8 h → 12 h (no ink), bridge 17:40 → 18:20 (a 40-min skip).
+    const draft = syntheticDraft(TEST_WEEKLY_FORM, PERIOD_START);
+    const knotAt = (hours: number) => Math.round((hours - 2) * 6);
+    const liftedKnots = liftStretch(draft.knots, knotAt(8), knotAt(12));
+    const skipFrom = knotAt(17 + 40 / 60) - (knotAt(12) - knotAt(8) - 1);
+    const knots = bridgeStretch(liftedKnots, skipFrom, skipFrom + 4);
+    const created = (await save({ version: null, work: { ...EMPTY_BENCH_WORK, pins: draft.pins, knots } })).body as DraftSaved;
+
+    const response = await request(context.app)
+      .post(API.scanInkLines(scanId))
+      .set('Authorization', `Bearer ${volunteer.token}`)
+      .send({ ...EMPTY_BENCH_WORK, pins: draft.pins, knots, draftVersion: created.version });
+
+    expect(response.status).toBe(201);
+    const row = await context.db.selectFrom('ink_line').select(['knots', 'work']).where('id', '=', created.inkLineId).executeTakeFirstOrThrow();
+    expect(row.knots.filter((knot) => knot.gapAfter)).toHaveLength(1);
+    expect(row.knots.filter((knot) => knot.bridgeAfter)).toHaveLength(1);
+    // The knots (with their spans) are stored once, in the knots column (ink-lines.service.ts), exactly as handed in.
+    expect(row.knots).toEqual(knots);
+    const points = await context.db.selectFrom('series_point').select(['time', 'flag', 'pressure_hpa']).where('ink_line_id', '=', created.inkLineId).orderBy('time').execute();
+    const at = (hours: number) => points.find((point) => point.time.getTime() === PERIOD_START_MS + hours * 3_600_000);
+    // A gap stores no value (ink-line-reading.ts keeps only valued points): nothing from the lift's start to its end.
+    const lifted = points.filter((point) => point.time.getTime() > PERIOD_START_MS + 8 * 3_600_000 && point.time.getTime() < PERIOD_START_MS + 12 * 3_600_000);
+    expect(lifted).toEqual([]);
+    expect(at(8)?.flag).toBe('ok');
+    expect(at(12)?.flag).toBe('ok');
+    expect(at(18)?.flag).toBe('interpolated');
+    // Invented truth (test/helpers/trace.ts): a straight 40-min join stays within 0.05 hPa of the curve.
+    expect(Math.abs((at(18)?.pressure_hpa as number) - syntheticPressureHpa(18))).toBeLessThan(0.05);
+    expect(at(17)?.flag).toBe('ok');
+    expect(at(13)?.flag).toBe('ok');
   });
 
   it('when the hand-in carries a stale draft version, then it answers 409 draft_version_conflict and the draft stays a draft', async () => {

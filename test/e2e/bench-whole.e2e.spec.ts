@@ -100,18 +100,29 @@ describe('the Bench, whole', () => {
     await page.getByTestId('nav-desk').click();
     const effort = new Effort(page);
 
-    // Act 1, Pin: Next chart claims it, then four crossings, each time and pressure typed, Enter saves.
+    // Act 1, Pin: Next chart claims it, then four crossings; each comes pre-filled from the printed lines, Enter saves.
     await page.getByTestId('next-chart').click();
     await page.locator(`[data-testid="desk-claim"][data-scan-id="${scanId}"]`).waitFor();
     await page.getByTestId('claim-open').click();
     effort.clicks += 2;
     await page.locator('[data-testid="scan-stage"][data-view-ready="true"]').waitFor();
     let view = await readStageView(page);
-    for (const pin of json.pins.slice(0, 4)) {
+    for (const [index, pin] of json.pins.slice(0, 4).entries()) {
       await effort.clickAt(toScreen(view, pin));
-      await effort.type('pin-time', typed(pin.time));
-      await effort.type('pin-pressure', String(pin.pressure));
+      // The click is snapped to the printed crossing found in the scan, and says so.
+      await page.getByTestId('pin-snapped').waitFor();
+      await expectValue(page, 'pin-time', typed(pin.time));
+      await expectValue(page, 'pin-pressure', String(pin.pressure));
       await effort.press('Enter');
+      await expectCount(page, 'pin-row', index + 1);
+      // The ghost grid comes with the third pin, and each pin then shows its residual; none of these is off.
+      const gridLines = Number((await page.getByTestId('scan-stage').getAttribute('data-ghost-grid-lines')) ?? 0);
+      if (index < 2) expect(gridLines).toBe(0);
+      else {
+        await page.waitForFunction(() => Number(document.querySelector('[data-testid="scan-stage"]')?.getAttribute('data-ghost-grid-lines')) > 0);
+        await expectCount(page, 'pin-residual', index + 1);
+        expect(await page.locator('[data-testid="pin-residual"][data-outlier="true"]').count()).toBe(0);
+      }
     }
     await page.locator('[data-testid="save-state"][data-state="saved"]').waitFor();
 
@@ -121,11 +132,19 @@ describe('the Bench, whole', () => {
     await expectCount(page, 'pin-row', 4);
     await page.locator('[data-testid="save-state"][data-state="saved"]').waitFor();
 
+    // The shortcuts' help opens with ? and closes with Esc (a look, not part of the volunteer's count).
+    await page.keyboard.press('?');
+    await page.getByTestId('shortcut-help').waitFor();
+    expect(await page.getByTestId('shortcut-row').count()).toBeGreaterThan(10);
+    await page.keyboard.press('Escape');
+    await page.getByTestId('shortcut-help').waitFor({ state: 'detached' });
+
     // Act 2, Ink: Follow ink finds the line.
     await effort.click('mode-ink');
     await effort.click('follow-ink');
     await page.getByTestId('follow-ink-result').waitFor();
 
+    const beforeMarks = effort.clicks + effort.keystrokes;
     // Act 3, Marks: each time mark's foot and its true time, chart on / chart off, one check reading per mark.
     view = await readStageView(page);
     await effort.click('mode-marks');
@@ -146,6 +165,7 @@ describe('the Bench, whole', () => {
     }
     await expectCount(page, 'check-row', json.checkReadings.length);
 
+    const inMarks = effort.clicks + effort.keystrokes - beforeMarks;
     // Act 4, Proof and Hand in.
     await effort.click('mode-proof');
     await page.getByTestId('proof-checklist').waitFor();
@@ -154,7 +174,8 @@ describe('the Bench, whole', () => {
     await result.waitFor();
     const clockText = await page.getByTestId('hand-in-clock').innerText();
     const instrumentText = await page.getByTestId('hand-in-instrument').innerText();
-    console.log(`Bench effort, Desk to Hand in: ${effort.clicks} clicks + ${effort.keystrokes} keystrokes = ${effort.clicks + effort.keystrokes}`);
+    const total = effort.clicks + effort.keystrokes;
+    console.log(`Bench effort, Desk to Hand in: ${effort.clicks} clicks + ${effort.keystrokes} keystrokes = ${total} (Marks step ${inMarks}, the rest ${total - inMarks})`);
 
     // Assert: the stored series of the volunteer's line, against the generator's truth.
     const db = createDb(databaseUrl, 1);
@@ -171,6 +192,11 @@ describe('the Bench, whole', () => {
         parseTruthCsv(chart.truthCsv),
       );
       console.log(`Bench hand-in: ${points.length} points, RMSE ${score.rmseHpa.toFixed(3)} hPa against the truth; ${clockText}; ${instrumentText}`);
+      // Snapped pins sit on the printed crossings to a fraction of a pixel, though a click lands only to a screen pixel (≈ 1.7 scan px here).
+      const pinMissesPx = (line.work.pins ?? []).map((stored, i) => Math.hypot(stored.xPx - json.pins[i].xPx, stored.yPx - json.pins[i].yPx));
+      console.log(`Bench pins: snapped ${pinMissesPx.map((miss) => miss.toFixed(2)).join(', ')} px from the true crossings`);
+      expect(pinMissesPx).toHaveLength(4);
+      expect(Math.max(...pinMissesPx)).toBeLessThan(0.5);
       expect(line.status).toBe('handed_in');
       expect(line.work.timeMarks).toHaveLength(markFeet.length);
       expect(clockText).not.toMatch(/not corrected/);
@@ -188,6 +214,15 @@ describe('the Bench, whole', () => {
     await page.close();
   });
 });
+
+/** Waits until the field shows the value (the Pin step fills it in a render after the click). */
+async function expectValue(page: Page, testId: string, value: string): Promise<void> {
+  await page.waitForFunction(
+    ([id, expected]) => (document.querySelector(`[data-testid="${id}"]`) as HTMLInputElement | null)?.value === expected,
+    [testId, value] as const,
+    { timeout: 5_000 },
+  );
+}
 
 async function expectCount(page: Page, testId: string, count: number): Promise<void> {
   await page.waitForFunction(([id, n]) => document.querySelectorAll(`[data-testid="${id}"]`).length === n, [testId, count] as const);

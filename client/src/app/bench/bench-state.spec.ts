@@ -183,6 +183,70 @@ describe('BenchState', () => {
     expect(state.work().knots[2]).toEqual({ xPx: 125, yPx: 54 });
   });
 
+  it('when a followed line is undone and redone, then Redo brings the followed knots back and a new knot ends Redo', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.chooseStep('ink');
+    state.replaceWithFollowed(FOLLOWED);
+
+    state.undo();
+    const afterUndo = state.knots();
+    state.redo();
+    const afterRedo = state.knots();
+    state.pickPoint({ x: 200, y: 60 });
+
+    expect(afterUndo).toEqual([]);
+    expect(afterRedo).toHaveLength(4);
+    expect(state.canRedo()).toBe(false);
+    expect(state.knots()).toHaveLength(5);
+  });
+
+  it('when the Lift tool picks two knots, then the stretch between is a gap, and Undo takes the lift back', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.chooseStep('ink');
+    state.replaceWithFollowed({ ...FOLLOWED, spans: [] });
+    state.chooseInkTool('lift');
+
+    state.pickPoint({ x: 101, y: 50 });
+    const startAfterFirstClick = state.stretchStart();
+    state.pickPoint({ x: 149, y: 57 });
+    const lifted = state.knots();
+    state.undo();
+
+    expect(startAfterFirstClick).toBe(0);
+    expect(lifted).toEqual([{ xPx: 100, yPx: 50, confidence: 0.9, gapAfter: true }, { xPx: 150, yPx: 56, confidence: 0.95, gapAfter: false }]);
+    expect(state.stretchStart()).toBeNull();
+    expect(state.knots()).toHaveLength(4);
+  });
+
+  it('when the Bridge tool picks the knots either side of a gap, then the gap becomes a bridge and no knot is added', () => {
+    state.setPreviewWidth(1000, 1000);
+    state.chooseStep('ink');
+    state.replaceWithFollowed(FOLLOWED);
+    state.chooseInkTool('bridge');
+
+    state.pickPoint({ x: 140, y: 55 });
+    state.pickPoint({ x: 110, y: 52 });
+
+    expect(state.knots().map((knot) => [knot.gapAfter ?? false, knot.bridgeAfter ?? false])).toEqual([
+      [false, false],
+      [false, true],
+      [false, false],
+      [false, false],
+    ]);
+    expect(state.work().knots[1].bridgeAfter).toBe(true);
+  });
+
+  it('when a crossing is picked snapped, then the snap distance is kept in scan pixels; a later plain pick clears it', () => {
+    state.setPreviewWidth(3000, 1500);
+
+    state.pickPoint({ x: 10, y: 20 }, 0.8);
+    const snappedPx = state.pendingSnapPx();
+    state.pickPoint({ x: 12, y: 20 });
+
+    expect(snappedPx).toBeCloseTo(1.6, 6);
+    expect(state.pendingSnapPx()).toBeNull();
+  });
+
   it('when nothing has changed, then undo does nothing', () => {
     state.undo();
 

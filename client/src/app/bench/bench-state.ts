@@ -2,6 +2,9 @@ import { computed, Injectable, signal } from '@angular/core';
 import type { FollowInkResult } from '@shared/api/follow-ink';
 import type { BenchStep, BenchWork, WorkCheckReading, WorkKnot, WorkTimeMark } from '@shared/api/bench-work';
 import type { PinInput } from '@shared/api/ink-lines';
+import { bridgeStretch, liftStretch, nearestKnotIndex } from '@shared/domain/knot-edits';
+
+import { EMPTY_HISTORY, type EditHistory, recordChange, redoChange, undoChange } from './edit-history';
 
 export type { BenchStep };
 
@@ -21,6 +24,12 @@ export type BenchKnot = WorkKnot;
 const UNDO_DEPTH = 50;
 
 /**
+ * What a click does in the Ink step: add a knot, or pick the two ends of a stretch to lift (no ink: a pen gap)
+ * or to bridge (a short skip joined on purpose).
+ */
+export type InkTool = 'knot' | 'lift' | 'bridge';
+
+/**
  * The Bench's working state for one scan: the step, the pins, the knots and the crossing picked for the
  * next pin. Every point is kept in FULL-resolution scan pixels; clicks arrive in preview-image pixels and
  * are scaled up here, because the server registers pins against the master scan.
@@ -30,24 +39,36 @@ export class BenchState {
   private readonly stepValue = signal<BenchStep>('pin');
   private readonly pinList = signal<readonly PinInput[]>([]);
   private readonly knotList = signal<readonly BenchKnot[]>([]);
-  // Earlier knot lists, newest last: every change to the knots pushes the list it replaced.
-  private readonly knotHistory = signal<readonly (readonly BenchKnot[])[]>([]);
+  // Earlier knot lists for Undo and undone ones for Redo: every change to the knots records the list it replaced.
+  private readonly knotHistory = signal<EditHistory<readonly BenchKnot[]>>(EMPTY_HISTORY);
+  private readonly inkToolValue = signal<InkTool>('knot');
+  private readonly stretchStartValue = signal<number | null>(null);
   private readonly pendingCrossing = signal<ScanPoint | null>(null);
   private readonly timeMarkList = signal<readonly WorkTimeMark[]>([]);
   private readonly chartOnValue = signal<string | null>(null);
   private readonly chartOffValue = signal<string | null>(null);
   private readonly checkReadingList = signal<readonly WorkCheckReading[]>([]);
   private readonly scanPxPerPreviewPxValue = signal<number | null>(null);
+  private readonly isSnapOnValue = signal(true);
+  private readonly pendingSnapValue = signal<number | null>(null);
 
   readonly step = this.stepValue.asReadonly();
   readonly pins = this.pinList.asReadonly();
   readonly knots = this.knotList.asReadonly();
   /** The grid crossing picked in the Pin step, waiting for its time and pressure. */
   readonly pendingPin = this.pendingCrossing.asReadonly();
+  /** Pin step: a click near a printed crossing moves to the crossing found in the image (the volunteer may turn it off). */
+  readonly isSnapOn = this.isSnapOnValue.asReadonly();
+  /** How far the picked crossing was moved from the click to the printed crossing, scan px; null: not snapped. */
+  readonly pendingSnapPx = this.pendingSnapValue.asReadonly();
   /** Full-resolution scan pixels per preview pixel; null until the preview has loaded. */
   readonly scanPxPerPreviewPx = this.scanPxPerPreviewPxValue.asReadonly();
   readonly knotCount = computed(() => this.knotList().length);
-  readonly canUndo = computed(() => this.knotHistory().length > 0);
+  readonly canUndo = computed(() => this.knotHistory().past.length > 0);
+  readonly canRedo = computed(() => this.knotHistory().future.length > 0);
+  readonly inkTool = this.inkToolValue.asReadonly();
+  /** Lift or Bridge: the knot picked as the stretch's first end, waiting for the second; null when none. */
+  readonly stretchStart = this.stretchStartValue.asReadonly();
   readonly timeMarks = this.timeMarkList.asReadonly();
   readonly chartOn = this.chartOnValue.asReadonly();
   readonly chartOff = this.chartOffValue.asReadonly();
@@ -68,7 +89,8 @@ export class BenchState {
     this.stepValue.set(work.step);
     this.pinList.set(work.pins);
     this.knotList.set(work.knots);
-    this.knotHistory.set([]);
+    this.knotHistory.set(EMPTY_HISTORY);
+    this.stretchStartValue.set(null);
     this.timeMarkList.set(work.timeMarks);
     this.chartOnValue.set(work.chartOn);
     this.chartOffValue.set(work.chartOff);
@@ -106,6 +128,19 @@ export class BenchState {
   chooseStep(step: BenchStep): void {
     this.stepValue.set(step);
     this.pendingCrossing.set(null);
+    this.stretchStartValue.set(null);
+  }
+
+  /** Picks what a click does in the Ink step; a stretch half picked is dropped. */
+  chooseInkTool(tool: InkTool): void {
+    this.inkToolValue.set(tool);
+    this.stretchStartValue.set(null);
+  }
+
+  /** Drops a half-entered pin or a half-picked stretch (Escape). */
+  cancelPick(): void {
+    this.pendingCrossing.set(null);
+    this.stretchStartValue.set(null);
   }
 
   /** Records the preview's size against the scan's: scale = scan width / preview natural width. */
@@ -121,11 +156,21 @@ export class BenchState {
     return { xPx: previewPoint.x * scale, yPx: previewPoint.y * scale };
   }
 
-  /** A click on the preview: picks the next pin's crossing (Pin), adds a knot (Ink) or a time mark (Marks). */
-  pickPoint(previewPoint: { x: number; y: number }): void {
+  turnSnap(isOn: boolean): void {
+    this.isSnapOnValue.set(isOn);
+  }
+
+  /**
+   * A click on the preview: picks the next pin's crossing (Pin), adds a knot (Ink) or a time mark (Marks).
+   * `snappedFromPx` says the Pin step's point is a printed crossing found this far from the click (preview px).
+   */
+  pickPoint(previewPoint: { x: number; y: number }, snappedFromPx: number | null = null): void {
     const point = this.toScanPoint(previewPoint);
+    const scale = this.scanPxPerPreviewPxValue() ?? 1;
+    this.pendingSnapValue.set(this.stepValue() === 'pin' && snappedFromPx !== null ? snappedFromPx * scale : null);
     if (this.stepValue() === 'pin') this.pendingCrossing.set(point);
-    else if (this.stepValue() === 'ink') this.addKnot(point);
+    else if (this.stepValue() === 'ink' && this.inkToolValue() === 'knot') this.addKnot(point);
+    else if (this.stepValue() === 'ink') this.pickStretchEnd(point);
     else if (this.stepValue() === 'marks') this.addTimeMark(point);
   }
 
@@ -143,6 +188,24 @@ export class BenchState {
       next.splice(at, 0, knot);
       return next;
     });
+  }
+
+  /**
+   * Lift or Bridge: the first click picks the knot nearest it as one end of the stretch, the second the other
+   * end, and the stretch is then lifted or bridged (one Undo step). A second click on the same knot drops it.
+   */
+  pickStretchEnd(point: ScanPoint): void {
+    const index = nearestKnotIndex(this.knotList(), point);
+    if (index === null) return;
+    const start = this.stretchStartValue();
+    if (start === null) {
+      this.stretchStartValue.set(index);
+      return;
+    }
+    this.stretchStartValue.set(null);
+    const tool = this.inkToolValue();
+    if (tool === 'lift') this.changeKnots((knots) => liftStretch(knots, start, index));
+    else if (tool === 'bridge') this.changeKnots((knots) => bridgeStretch(knots, start, index));
   }
 
   /** Replaces all knots with the line Follow ink found (one Undo brings the earlier knots back). */
@@ -172,19 +235,29 @@ export class BenchState {
     });
   }
 
-  /** Undoes the last change to the knots (a click, a drag, a delete or a Follow ink). */
+  /** Undoes the last change to the knots (a click, a drag, a delete, a lift, a bridge or a Follow ink). */
   undo(): void {
-    const history = this.knotHistory();
-    if (history.length === 0) return;
-    this.knotList.set(history[history.length - 1]);
-    this.knotHistory.set(history.slice(0, -1));
+    const step = undoChange(this.knotHistory(), this.knotList());
+    if (step === null) return;
+    this.knotList.set(step.state);
+    this.knotHistory.set(step.history);
+    this.stretchStartValue.set(null);
+  }
+
+  /** Does again the last change Undo took back; a new change after an Undo ends Redo. */
+  redo(): void {
+    const step = redoChange(this.knotHistory(), this.knotList());
+    if (step === null) return;
+    this.knotList.set(step.state);
+    this.knotHistory.set(step.history);
+    this.stretchStartValue.set(null);
   }
 
   private changeKnots(change: (knots: readonly BenchKnot[]) => readonly BenchKnot[]): void {
     const before = this.knotList();
     const after = change(before);
     if (after === before) return;
-    this.knotHistory.update((history) => [...history, before].slice(-UNDO_DEPTH));
+    this.knotHistory.update((history) => recordChange(history, before, UNDO_DEPTH));
     this.knotList.set(after);
   }
 

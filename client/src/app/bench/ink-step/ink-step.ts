@@ -7,13 +7,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { FEWEST_PINS as MIN_PINS } from '@shared/domain/registration-model';
 
 import { ApiError } from '../../core/http/api-error';
-import { BenchState } from '../bench-state';
+import { BenchState, type InkTool } from '../bench-state';
 import { FollowInkApi } from '../follow-ink-api';
 import { LOW_CONFIDENCE } from '../scan-stage/stage-marks';
 
 /**
  * The Ink step: Follow ink finds the pen line from the pins; knots can also be clicked along the line,
- * dragged to correct them and right-clicked to delete them. Undo steps back through every change.
+ * dragged to correct them and right-clicked to delete them. Lift marks a stretch as no ink, Bridge joins a
+ * short skip on purpose. Undo and Redo step through every change.
  */
 @Component({
   selector: 'isl-ink-step',
@@ -40,16 +41,53 @@ import { LOW_CONFIDENCE } from '../scan-stage/stage-marks';
       @if (problem(); as problem) {
         <p class="isl-inline-error" role="alert" data-testid="follow-ink-problem">{{ problem }}</p>
       }
-      <p class="isl-muted">Click along the pen line to add a knot; drag a knot to correct it; right-click a knot to delete it.</p>
+      <div class="tools" role="group" aria-label="Ink tool">
+        @for (tool of tools; track tool.tool) {
+          <button
+            mat-stroked-button
+            type="button"
+            [class.is-current]="state.inkTool() === tool.tool"
+            [attr.aria-pressed]="state.inkTool() === tool.tool"
+            (click)="state.chooseInkTool(tool.tool)"
+            [attr.data-testid]="'ink-tool-' + tool.tool"
+          >
+            <mat-icon>{{ tool.icon }}</mat-icon>
+            {{ tool.label }} <span class="key">{{ tool.key }}</span>
+          </button>
+        }
+      </div>
+      <p class="isl-muted" data-testid="ink-tool-hint">
+        @switch (state.inkTool()) {
+          @case ('knot') {
+            Click along the pen line to add a knot; drag a knot to correct it; right-click a knot to delete it.
+          }
+          @case ('lift') {
+            Lift: click the knot where the ink stops, then the knot where it starts again. The stretch between is kept as a gap.
+          }
+          @case ('bridge') {
+            Bridge: click the knots either side of a short skip. The stretch is joined, and its values are flagged interpolated.
+          }
+        }
+        @if (state.stretchStart() !== null) {
+          <strong data-testid="stretch-start">First end picked (knot {{ state.stretchStart()! + 1 }}); now the other end, or Esc.</strong>
+        }
+      </p>
       <p class="legend">
         <span class="swatch"></span><span data-testid="knot-count" [attr.data-count]="state.knotCount()">{{ state.knotCount() }}</span> knots
         <span class="swatch is-doubtful"></span> doubtful
         <span class="bracket">[ ]</span> gap
+        <span class="swatch is-bridge"></span> bridge
       </p>
-      <button mat-stroked-button type="button" (click)="undo()" [disabled]="!state.canUndo()" data-testid="undo-knot">
-        <mat-icon>undo</mat-icon>
-        Undo
-      </button>
+      <div class="tools">
+        <button mat-stroked-button type="button" (click)="state.undo()" [disabled]="!state.canUndo()" data-testid="undo-knot">
+          <mat-icon>undo</mat-icon>
+          Undo <span class="key">U</span>
+        </button>
+        <button mat-stroked-button type="button" (click)="state.redo()" [disabled]="!state.canRedo()" data-testid="redo-knot">
+          <mat-icon>redo</mat-icon>
+          Redo <span class="key">⇧U</span>
+        </button>
+      </div>
     </section>
   `,
   styles: `
@@ -57,7 +95,11 @@ import { LOW_CONFIDENCE } from '../scan-stage/stage-marks';
     .legend { display: flex; flex-wrap: wrap; align-items: center; gap: 6px; font: var(--mat-sys-body-medium); }
     .swatch { width: 18px; height: 3px; border-radius: 2px; background: var(--isl-ink-cyan); }
     .swatch.is-doubtful { background: repeating-linear-gradient(90deg, hsl(24, 100%, 50%) 0 6px, transparent 6px 9px); }
+    .swatch.is-bridge { background: repeating-linear-gradient(90deg, var(--isl-ink-cyan) 0 2px, transparent 2px 5px); }
     .bracket { color: hsl(0, 80%, 48%); font-weight: 700; }
+    .tools { display: flex; flex-wrap: wrap; gap: 6px; margin: 8px 0; }
+    .tools .is-current { background: var(--mat-sys-secondary-container); color: var(--mat-sys-on-secondary-container); }
+    .key { margin-left: 4px; padding: 0 4px; border: 1px solid currentColor; border-radius: 3px; font: var(--mat-sys-label-small); opacity: 0.75; }
     mat-progress-bar { margin: 6px 0; }
   `,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -71,12 +113,19 @@ export class InkStep {
   readonly scanId = input.required<string>();
 
   protected readonly minPins = MIN_PINS;
+  protected readonly tools: readonly { tool: InkTool; label: string; icon: string; key: string }[] = [
+    { tool: 'knot', label: 'Knot', icon: 'add_location', key: 'K' },
+    { tool: 'lift', label: 'Lift', icon: 'format_strikethrough', key: 'L' },
+    { tool: 'bridge', label: 'Bridge', icon: 'linear_scale', key: 'B' },
+  ];
   protected readonly isFollowing = signal(false);
   protected readonly problem = signal<string | null>(null);
   protected readonly followed = signal<{ elapsedMs: number; knotCount: number; doubtfulCount: number; gapCount: number } | null>(null);
   protected readonly canFollow = computed(() => this.state.pins().length >= MIN_PINS && !this.isFollowing());
 
-  protected followInk(): void {
+  /** Follows the ink from the pins (the button, or F from the Bench's shortcuts); does nothing while it cannot. */
+  followInk(): void {
+    if (!this.canFollow()) return;
     this.problem.set(null);
     this.followed.set(null);
     this.isFollowing.set(true);
@@ -105,7 +154,4 @@ export class InkStep {
       });
   }
 
-  protected undo(): void {
-    this.state.undo();
-  }
 }

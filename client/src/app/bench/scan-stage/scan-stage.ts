@@ -15,9 +15,11 @@ import {
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import type { PinInput } from '@shared/api/ink-lines';
+import type { GhostGridLine } from '@shared/domain/ghost-grid';
 import Konva from 'konva';
 
 import type { BenchKnot, ScanPoint } from '../bench-state';
+import { drawGhostGrid } from './stage-ghost-grid';
 import { drawMarks, KNOT_NAME, type KnotEdits } from './stage-marks';
 import { fitView, type Size, type ViewTransform, zoomAbout } from './view-transform';
 
@@ -49,6 +51,12 @@ export class ScanStage {
   readonly pins = input<readonly PinInput[]>([]);
   readonly knots = input<readonly BenchKnot[]>([]);
   readonly pendingPin = input<ScanPoint | null>(null);
+  /** The fitted printed grid in scan px (after 3 pins), drawn under the marks; null: none. */
+  readonly ghostGrid = input<readonly GhostGridLine[] | null>(null);
+  /** Pins (by index) off the others: drawn with a warning ring. */
+  readonly outlierPins = input<readonly number[]>([]);
+  /** Lift or Bridge: the knot picked as a stretch's first end, ringed; null when none. */
+  readonly stretchStart = input<number | null>(null);
   /** Ink step: knots can be dragged to correct them and right-clicked to delete them. */
   readonly areKnotsEditable = input(false);
   /** The preview's natural size, once loaded. */
@@ -66,11 +74,13 @@ export class ScanStage {
   protected readonly altText = computed(() => {
     const pins = this.pins().length;
     const knots = this.knots().length;
-    return `The scan, zoomed to ${this.zoomPercent()}%, with ${pins} ${pins === 1 ? 'pin' : 'pins'} and an ink line of ${knots} ${knots === 1 ? 'knot' : 'knots'}`;
+    const grid = this.ghostGrid() ? ', the ghost grid the pins give' : '';
+    return `The scan, zoomed to ${this.zoomPercent()}%, with ${pins} ${pins === 1 ? 'pin' : 'pins'}${grid} and an ink line of ${knots} ${knots === 1 ? 'knot' : 'knots'}`;
   });
 
   private stage: Konva.Stage | null = null;
   private imageLayer: Konva.Layer | null = null;
+  private ghostLayer: Konva.Layer | null = null;
   private marksLayer: Konva.Layer | null = null;
   private imageSize: Size | null = null;
   private pressStart: { x: number; y: number } | null = null;
@@ -81,9 +91,12 @@ export class ScanStage {
     const destroyRef = inject(DestroyRef);
     afterNextRender(() => this.createStage(destroyRef));
     effect(() => this.loadImage(this.imageUrl()));
+    effect(() => this.redrawGhostGrid(this.ghostGrid(), this.scanPxPerPreviewPx()));
     effect(() => {
       // Read every input the marks depend on, so the effect re-runs when any of them changes.
       this.areKnotsEditable();
+      this.outlierPins();
+      this.stretchStart();
       this.redrawMarks(this.currentMarks());
     });
   }
@@ -106,8 +119,9 @@ export class ScanStage {
     const stage = new Konva.Stage({ container: host, width: host.clientWidth || 800, height: host.clientHeight || 600, draggable: true });
     // The scan never needs hit testing; keeping it out of the hit graph keeps panning smooth on large scans.
     this.imageLayer = new Konva.Layer({ listening: false });
+    this.ghostLayer = new Konva.Layer({ listening: false });
     this.marksLayer = new Konva.Layer();
-    stage.add(this.imageLayer, this.marksLayer);
+    stage.add(this.imageLayer, this.ghostLayer, this.marksLayer);
     stage.on('pointerdown', () => (this.pressStart = stage.getPointerPosition()));
     stage.on('click tap', (event) => {
       // A click on a knot (or a right-click anywhere) is not a new knot.
@@ -130,7 +144,15 @@ export class ScanStage {
 
     if (this.pendingImage) this.showImage(this.pendingImage);
     this.reportView();
+    this.redrawGhostGrid(this.ghostGrid(), this.scanPxPerPreviewPx());
     this.redrawMarks(this.currentMarks());
+  }
+
+  /** Draws the ghost grid and says on the host how many lines it has (data-ghost-grid-lines, 0 for none). */
+  private redrawGhostGrid(lines: readonly GhostGridLine[] | null, scanPxPerPreviewPx: number | null): void {
+    if (!this.ghostLayer || scanPxPerPreviewPx === null) return;
+    drawGhostGrid(this.ghostLayer, lines, scanPxPerPreviewPx);
+    this.konvaHost().nativeElement.setAttribute('data-ghost-grid-lines', String(lines?.length ?? 0));
   }
 
   private loadImage(url: string): void {
@@ -214,7 +236,14 @@ export class ScanStage {
     if (!this.marksLayer || !this.stage || marks.scale === null) return;
     drawMarks(
       this.marksLayer,
-      { ...marks, scanPxPerPreviewPx: marks.scale, screenPxPerPreviewPx: this.stage.scaleX(), areKnotsEditable: this.areKnotsEditable() },
+      {
+        ...marks,
+        scanPxPerPreviewPx: marks.scale,
+        screenPxPerPreviewPx: this.stage.scaleX(),
+        areKnotsEditable: this.areKnotsEditable(),
+        outlierPins: new Set(this.outlierPins()),
+        stretchStart: this.stretchStart(),
+      },
       this.knotEdits,
     );
     // The scale attribute depends on scanPxPerPreviewPx too, which may just have become known.

@@ -10,6 +10,8 @@ const INK_CYAN = 'hsl(188, 100%, 42%)';
 // Doubtful stretches (dashed orange) and gaps (red brackets, drawn as in every plot), as the Look asks.
 const LOW_CONFIDENCE_ORANGE = 'hsl(24, 100%, 50%)';
 const OUTLINE = 'rgba(20, 30, 30, 0.85)';
+// A pin off the others: the warning red of Material's error role, as a ring (amber stays the pin's own colour).
+const OUTLIER_RED = 'hsl(0, 75%, 45%)';
 /** Below this confidence a followed stretch is drawn as doubtful, for the volunteer to check. */
 export const LOW_CONFIDENCE = 0.5;
 /** Closest two followed knots' handles are drawn on screen, px; zoom in to reach the ones between. */
@@ -27,6 +29,10 @@ export interface Marks {
   screenPxPerPreviewPx: number;
   /** Ink step: knots can be dragged (moved) and right-clicked (deleted). */
   areKnotsEditable: boolean;
+  /** Pins off the others (by index): a red warning ring round the amber pin. */
+  outlierPins: ReadonlySet<number>;
+  /** Lift or Bridge: the knot picked as the stretch's first end (a ring), or null. */
+  stretchStart: number | null;
 }
 
 export interface KnotEdits {
@@ -35,11 +41,15 @@ export interface KnotEdits {
   deleted(index: number): void;
 }
 
-type SegmentStyle = 'sure' | 'doubtful' | 'gap';
+type SegmentStyle = 'sure' | 'doubtful' | 'gap' | 'bridge';
 
-/** How the stretch from knot i to knot i + 1 is drawn: a gap is not drawn (its ends get brackets); a weak end makes it doubtful. */
+/**
+ * How the stretch from knot i to knot i + 1 is drawn: a gap is not drawn (its ends get brackets); a bridge is
+ * dotted cyan (joined on purpose, no ink read); a weak end makes it doubtful.
+ */
 export function segmentStyle(from: BenchKnot, to: BenchKnot): SegmentStyle {
   if (from.gapAfter) return 'gap';
+  if (from.bridgeAfter) return 'bridge';
   return Math.min(from.confidence ?? 1, to.confidence ?? 1) < LOW_CONFIDENCE ? 'doubtful' : 'sure';
 }
 
@@ -83,8 +93,16 @@ export function drawMarks(layer: Konva.Layer, marks: Marks, edits?: KnotEdits): 
     layer.add(knot);
   });
 
+  if (marks.stretchStart !== null && knotPoints[marks.stretchStart]) {
+    const point = knotPoints[marks.stretchStart];
+    layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 8 * unit, stroke: INK_CYAN, strokeWidth: 2.5 * unit, listening: false }));
+  }
+
   marks.pins.forEach((pin, index) => {
     const point = toPreview(pin);
+    if (marks.outlierPins.has(index)) {
+      layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 10 * unit, stroke: OUTLIER_RED, strokeWidth: 2.5 * unit, listening: false }));
+    }
     layer.add(new Konva.Circle({ x: point.x, y: point.y, radius: 6 * unit, fill: PIN_AMBER, stroke: OUTLINE, strokeWidth: unit, listening: false }));
     layer.add(new Konva.Text({ x: point.x + 8 * unit, y: point.y - 16 * unit, text: String(index + 1), fontSize: 13 * unit, fontStyle: 'bold', fill: OUTLINE, listening: false }));
   });
@@ -111,9 +129,9 @@ function drawInkLine(layer: Konva.Layer, knots: readonly BenchKnot[], points: { 
       layer.add(
         new Konva.Line({
           points: run,
-          stroke: style === 'sure' ? INK_CYAN : LOW_CONFIDENCE_ORANGE,
+          stroke: style === 'doubtful' ? LOW_CONFIDENCE_ORANGE : INK_CYAN,
           strokeWidth: 2 * unit,
-          dash: style === 'doubtful' ? [6 * unit, 4 * unit] : undefined,
+          dash: style === 'doubtful' ? [6 * unit, 4 * unit] : style === 'bridge' ? [1.5 * unit, 3 * unit] : undefined,
           lineJoin: 'round',
           lineCap: 'round',
           listening: false,
