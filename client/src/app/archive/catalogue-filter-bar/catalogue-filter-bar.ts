@@ -16,6 +16,8 @@ import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { StationsApi } from '../../core/api/stations-api';
 import { parseUtcDay } from '../../series/series-range';
 import { type CatalogueFilters, NO_FILTERS } from '../catalogue-page/catalogue-filters';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 function utcDayValidator(control: AbstractControl<string>): ValidationErrors | null {
   return control.value.trim() === '' || parseUtcDay(control.value) !== null ? null : { utcDay: true };
@@ -27,7 +29,7 @@ const TEXT_DEBOUNCE_MS = 350;
 /** The catalogue's filters in one compact row: station, instrument, chart form, days, status, tags and free text. */
 @Component({
   selector: 'isl-catalogue-filter-bar',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatChipsModule, MatIconModule, MatButtonModule],
+  imports: [SelectOptionsFailure, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatChipsModule, MatIconModule, MatButtonModule],
   templateUrl: './catalogue-filter-bar.html',
   styleUrl: './catalogue-filter-bar.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -41,8 +43,10 @@ export class CatalogueFilterBar {
   protected readonly statuses = SCAN_STATUSES;
   protected readonly statusLabels = SCAN_STATUS_LABELS;
   protected readonly tagSeparators = [ENTER, COMMA] as const;
-  protected readonly stations = toSignal(this.stationsApi.listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
-  protected readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(this.stationsApi.listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
+  protected readonly chartFormOptions = loadSelectOptions(inject(ChartFormsApi).listForSelect(), 'The chart forms');
+  protected readonly chartForms = this.chartFormOptions.items;
   protected readonly form = inject(NonNullableFormBuilder).group({
     stationId: [''],
     instrumentId: [''],

@@ -1,6 +1,5 @@
 import { DatePipe, DecimalPipe, PercentPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
 import { FormsModule } from '@angular/forms';
 import { MatButtonToggleModule } from '@angular/material/button-toggle';
 import { MatButtonModule } from '@angular/material/button';
@@ -15,16 +14,17 @@ import type { ProgressGroup, TracingProgressRow } from '@shared/api/desk';
 import { DEFAULT_PAGE_SIZE } from '@shared/api/paging';
 import { correctionsAppliedInWords } from '@shared/api/correction-words';
 import type { ReviewRow, ReviewState } from '@shared/api/review';
-import { catchError, map, of } from 'rxjs';
 
 import { StationsApi } from '../../core/api/stations-api';
 import { createPagedList } from '../../shared/paged-list/paged-list';
 import { ReviewApi } from '../review-api';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 /** The archivist's Review: handed-in ink lines, oldest first, with what a decision needs; and tracing progress. */
 @Component({
   selector: 'isl-review-list',
-  imports: [DatePipe, DecimalPipe, PercentPipe, FormsModule, RouterLink, MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatButtonToggleModule, MatButtonModule, MatIconModule, MatInputModule],
+  imports: [SelectOptionsFailure, DatePipe, DecimalPipe, PercentPipe, FormsModule, RouterLink, MatTableModule, MatPaginatorModule, MatSelectModule, MatFormFieldModule, MatButtonToggleModule, MatButtonModule, MatIconModule, MatInputModule],
   templateUrl: './review-list.html',
   styles: `
     .filters { display: flex; flex-wrap: wrap; gap: 12px; }
@@ -35,7 +35,8 @@ import { ReviewApi } from '../review-api';
 export class ReviewList {
   private readonly reviewApi = inject(ReviewApi);
 
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(inject(StationsApi).listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
   protected readonly stationId = signal('');
   protected readonly state = signal<ReviewState>('handed_in');
   /** Chart start range, YYYY-MM-DD ('' for open); the server takes both ends inclusive. */

@@ -16,6 +16,8 @@ import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { normalizeInstant } from '@shared/api/parse-instant';
 import { scanMetadataChanges, valuesOfScan } from './scan-metadata-changes';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
   return control.value.trim() === '' || normalizeInstant(control.value) !== null ? null : { utcInstant: true };
@@ -35,7 +37,7 @@ type Problem = { kind: 'conflict'; message: string } | { kind: 'invalid'; messag
  */
 @Component({
   selector: 'isl-scan-metadata-form',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
+  imports: [SelectOptionsFailure, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule],
   templateUrl: './scan-metadata-form.html',
   styleUrl: './scan-metadata-form.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -49,8 +51,10 @@ export class ScanMetadataForm {
   readonly saved = output<ScanDetail>();
   readonly reloadRequested = output<void>();
 
-  protected readonly stations = toSignal(this.stationsApi.listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
-  protected readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(this.stationsApi.listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
+  protected readonly chartFormOptions = loadSelectOptions(inject(ChartFormsApi).listForSelect(), 'The chart forms');
+  protected readonly chartForms = this.chartFormOptions.items;
   protected readonly form = inject(NonNullableFormBuilder).group({
     stationId: [''],
     instrumentId: [''],

@@ -1,6 +1,6 @@
 import { DecimalPipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, signal } from '@angular/core';
-import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { NonNullableFormBuilder, ReactiveFormsModule, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -9,7 +9,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import type { IntakeFileFields } from '@shared/api/intake';
-import { catchError, map, of, switchMap } from 'rxjs';
+import { map, of, switchMap } from 'rxjs';
 
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { StationsApi } from '../../core/api/stations-api';
@@ -22,6 +22,8 @@ import type { SendsFiles } from '../intake-running-guard';
 import { IntakeProgress } from '../intake-progress/intake-progress';
 import { RecentBatches } from '../recent-batches/recent-batches';
 import { UploadPanel } from '../upload-panel/upload-panel';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 const ACCEPTED = 'image/tiff,image/jpeg,image/png,application/pdf,.tif,.tiff,.jpg,.jpeg,.png,.pdf,.csv,text/csv';
 
@@ -36,7 +38,7 @@ function defaultLabel(now: Date): string {
  */
 @Component({
   selector: 'isl-intake-page',
-  imports: [
+  imports: [SelectOptionsFailure, 
     DecimalPipe,
     ReactiveFormsModule,
     MatButtonModule,
@@ -62,8 +64,10 @@ export class IntakePage implements SendsFiles {
   protected readonly queue = inject(IntakeQueue);
 
   protected readonly accepted = ACCEPTED;
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
-  protected readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(inject(StationsApi).listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
+  protected readonly chartFormOptions = loadSelectOptions(inject(ChartFormsApi).listForSelect(), 'The chart forms');
+  protected readonly chartForms = this.chartFormOptions.items;
   protected readonly form = inject(NonNullableFormBuilder).group({
     label: [defaultLabel(new Date()), [Validators.required, Validators.maxLength(200)]],
     stationId: [''],

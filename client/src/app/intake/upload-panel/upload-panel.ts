@@ -1,7 +1,7 @@
 import { KeyValuePipe } from '@angular/common';
 import { HttpEventType } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, output, signal } from '@angular/core';
-import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -11,13 +11,14 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
 import type { ScanDetail } from '@shared/api/scans';
-import { catchError, map, of } from 'rxjs';
 
 import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ScansApi } from '../../core/api/scans-api';
 import { StationsApi } from '../../core/api/stations-api';
 import { normalizeInstant } from '@shared/api/parse-instant';
 import { outcomeOfFailure, type UploadOutcome } from './upload-outcome';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
   return control.value === '' || normalizeInstant(control.value) !== null ? null : { utcInstant: true };
@@ -26,7 +27,7 @@ function utcInstantValidator(control: AbstractControl<string>): ValidationErrors
 /** One scan at a time: the file, its station, chart form and chart-on time, with upload progress. */
 @Component({
   selector: 'isl-upload-panel',
-  imports: [ReactiveFormsModule, RouterLink, KeyValuePipe, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatProgressBarModule],
+  imports: [SelectOptionsFailure, ReactiveFormsModule, RouterLink, KeyValuePipe, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, MatIconModule, MatProgressBarModule],
   templateUrl: './upload-panel.html',
   styleUrl: './upload-panel.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -38,8 +39,10 @@ export class UploadPanel {
   /** Emits the scan the server stored, so the catalogue can refresh. */
   readonly stored = output<ScanDetail>();
 
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
-  protected readonly chartForms = toSignal(inject(ChartFormsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(inject(StationsApi).listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
+  protected readonly chartFormOptions = loadSelectOptions(inject(ChartFormsApi).listForSelect(), 'The chart forms');
+  protected readonly chartForms = this.chartFormOptions.items;
   protected readonly form = inject(NonNullableFormBuilder).group({
     stationId: ['', Validators.required],
     chartFormId: ['', Validators.required],

@@ -1,5 +1,5 @@
 import { ChangeDetectionStrategy, Component, DestroyRef, inject, input, OnInit, signal } from '@angular/core';
-import { takeUntilDestroyed, toSignal } from '@angular/core/rxjs-interop';
+import { takeUntilDestroyed } from '@angular/core/rxjs-interop';
 import { AbstractControl, NonNullableFormBuilder, ReactiveFormsModule, ValidationErrors, Validators } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatFormFieldModule } from '@angular/material/form-field';
@@ -7,12 +7,13 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
 import { MAX_LESSON_DAYS } from '@shared/api/lessons';
-import { catchError, map, of } from 'rxjs';
 
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { normalizeInstant } from '@shared/api/parse-instant';
 import { LessonsApi } from '../lessons-api';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 function instantValidator(control: AbstractControl<string>): ValidationErrors | null {
   return normalizeInstant(control.value) === null ? { instant: true } : null;
@@ -35,7 +36,7 @@ export function passageProblem(from: string, to: string): string | null {
  */
 @Component({
   selector: 'isl-new-lesson',
-  imports: [ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, RouterLink],
+  imports: [SelectOptionsFailure, ReactiveFormsModule, MatFormFieldModule, MatInputModule, MatSelectModule, MatButtonModule, RouterLink],
   templateUrl: './new-lesson.html',
   styles: `.form { display: flex; flex-direction: column; gap: 12px; max-width: 640px; }`,
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -50,7 +51,8 @@ export class NewLesson implements OnInit {
   readonly from = input<string | undefined>(undefined);
   readonly to = input<string | undefined>(undefined);
 
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(inject(StationsApi).listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
   protected readonly form = inject(NonNullableFormBuilder).group({
     title: ['', [Validators.required, Validators.maxLength(200)]],
     audience: ['', Validators.maxLength(200)],

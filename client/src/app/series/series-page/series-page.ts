@@ -36,6 +36,8 @@ import { SeriesOverview } from '../series-overview/series-overview';
 import { type SeriesView, SeriesQueryApi } from '../series-query-api';
 import { parseUtcDay, seriesFileName } from '../series-range';
 import { SeriesRangeForm } from './series-range-form';
+import { loadSelectOptions } from '../../shared/select-options/select-options';
+import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
 
 const DAY_MS = 86_400_000;
 /** Stations one plot overlays (one request serves them all). */
@@ -56,7 +58,7 @@ function messageOf(error: unknown, fallback: string): string {
  */
 @Component({
   selector: 'isl-series-page',
-  imports: [
+  imports: [SelectOptionsFailure, 
     ReactiveFormsModule,
     RouterLink,
     MatFormFieldModule,
@@ -85,7 +87,8 @@ export class SeriesPage {
   private readonly session = inject(AuthSession);
 
   protected readonly units = PRESSURE_UNITS.filter((unit) => unit === 'hPa' || unit === 'inHg' || unit === 'mmHg');
-  protected readonly stations = toSignal(inject(StationsApi).listForSelect().pipe(map((page) => page.items), catchError(() => of([]))), { initialValue: [] });
+  protected readonly stationOptions = loadSelectOptions(inject(StationsApi).listForSelect(), 'The stations');
+  protected readonly stations = this.stationOptions.items;
   protected readonly picks = inject(NonNullableFormBuilder).group({
     stationId: [''],
     overlayIds: [[] as string[]],
