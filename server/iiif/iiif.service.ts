@@ -1,6 +1,5 @@
 import fs from 'node:fs/promises';
 import path from 'node:path';
-import type { ScanDetail } from '@shared/api/scans';
 import type { Db } from '../db/database';
 import { AppError, HTTP } from '../errors/app-error';
 import { TILES_FOLDER } from '../jobs/make-derivatives';
@@ -36,20 +35,8 @@ export async function getManifest(db: Db, scanId: string, origin: string): Promi
 }
 
 export async function getBoxCollection(db: Db, collection: string, box: string, origin: string): Promise<Record<string, unknown>> {
-  const rows = await db
-    .selectFrom('scan')
-    .select('id')
-    .where('collection', '=', collection)
-    .where('box', '=', box)
-    .orderBy('folder')
-    .orderBy('item')
-    .orderBy('chart_start')
-    .orderBy('original_name')
-    .orderBy('page_index')
-    .execute();
-  if (rows.length === 0) throw new AppError(HTTP.notFound, 'not_found', `No scans are catalogued in collection "${collection}", box "${box}".`);
-  const scans: ScanDetail[] = [];
-  for (const row of rows) scans.push((await scansRepository.findScanById(db, row.id)) as ScanDetail);
+  const scans = await scansRepository.findScansInBox(db, collection, box);
+  if (scans.length === 0) throw new AppError(HTTP.notFound, 'not_found', `No scans are catalogued in collection "${collection}", box "${box}".`);
   return buildBoxCollection(origin, collection, box, scans);
 }
 

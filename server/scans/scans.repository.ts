@@ -104,6 +104,20 @@ export async function findScansInBatch(db: DbOrTrx, batchId: string): Promise<Sc
   return rows.map(toScanSummary);
 }
 
+/** Every scan catalogued in one box of a collection, in shelf order (folder, item, chart start, file, page), in one query. */
+export async function findScansInBox(db: DbOrTrx, collection: string, box: string): Promise<ScanDetail[]> {
+  const rows = await selectScans(db)
+    .where('scan.collection', '=', collection)
+    .where('scan.box', '=', box)
+    .orderBy('scan.folder')
+    .orderBy('scan.item')
+    .orderBy('scan.chart_start')
+    .orderBy('scan.original_name')
+    .orderBy('scan.page_index')
+    .execute();
+  return rows.map(toScanDetail);
+}
+
 /** The first page's scan of a master, by the master's hash. */
 export async function findScanIdBySha256(db: DbOrTrx, sha256: string): Promise<string | undefined> {
   const row = await db.selectFrom('scan').select('id').where('sha256', '=', sha256).orderBy('page_index').executeTakeFirst();

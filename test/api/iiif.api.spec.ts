@@ -211,6 +211,18 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
     expect(collection.items).toEqual([{ id: expect.stringMatching(new RegExp(`/iiif/3/${scanId}/manifest$`)), type: 'Manifest', label: expect.any(Object) }]);
   });
 
+  it('when a box holds several scans, then the collection lists them in shelf order, folder first', async () => {
+    // Page 1 of the PDF sits in folder 2 and page 0 in folder 1: shelf order is by folder before the file's page.
+    await context.db.updateTable('scan').set({ collection: 'KRO-A', box: '15', folder: '2' }).where('id', '=', pdfScanIds[1]).execute();
+    await context.db.updateTable('scan').set({ collection: 'KRO-A', box: '15', folder: '1' }).where('id', '=', pdfScanIds[0]).execute();
+
+    const response = await get(IIIF.boxCollection('KRO-A', '15'));
+
+    expect(response.status).toBe(200);
+    const ids = JSON.parse(response.text).items.map((item: { id: string }) => item.id.split('/').at(-2));
+    expect(ids).toEqual([pdfScanIds[0], pdfScanIds[1]]);
+  });
+
   it('when a box has no scans, then its collection is 404', async () => {
     const response = await get(IIIF.boxCollection('KRO-A', '99'));
 
