@@ -67,6 +67,21 @@ describe('ink against grid by colour', () => {
     expect(trace.contrastReason).toMatch(/grey-scale/);
   });
 
+  it('when a grey-scale scan is stored as RGB and a coloured ink is given, then the scan, not the given colour, keeps "darker than the grid"', () => {
+    const image = blankScan(3, BLUE_GRID);
+    drawFaded(image, VIOLET_BLUE_INK, 1, 23);
+    // Luma in all three channels (ITU-R BT.601 weights, common practice): a grey scan saved as colour.
+    for (let k = 0; k < image.data.length; k += 3) {
+      const luma = Math.round(0.299 * image.data[k] + 0.587 * image.data[k + 1] + 0.114 * image.data[k + 2]);
+      image.data[k] = image.data[k + 1] = image.data[k + 2] = luma;
+    }
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23, inkColour: { r: VIOLET_BLUE_INK[0], g: VIOLET_BLUE_INK[1], b: VIOLET_BLUE_INK[2] } });
+
+    expect(trace.contrastMode).toBe('grey');
+    expect(trace.contrastReason).not.toMatch(/CIELAB/);
+  });
+
   it('when ink far from the grid in hue is given, then the linear colour model is kept', () => {
     const image = blankScan(3);
     drawFaded(image, [59, 44, 134], 1, 23);
