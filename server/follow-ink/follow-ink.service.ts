@@ -1,5 +1,6 @@
 import type { FollowInkRequest, FollowInkResult } from '@shared/api/follow-ink';
 import { followInk } from '@shared/domain/ink/follow-ink';
+import { followSpanHours } from '@shared/domain/pipeline/follow-span';
 import { parseHexColour, type RawImage } from '@shared/domain/ink/raw-image';
 import { readingToPixel, RegistrationError, type RegistrationFit } from '@shared/domain/registration';
 import type { ChartForm } from '@shared/domain/chart-form';
@@ -12,7 +13,6 @@ import type { Storage } from '../storage/storage';
 import { loadTraceableScan } from '../tracing/traceable-scan';
 import { thinTrace } from './thin-knots';
 
-const MS_PER_HOUR = 3_600_000;
 /** Knot spacing along the line, paper mm: close enough that straight joins stay within a pen width of the curve (common practice). */
 const KNOT_SPACING_MM = 0.75;
 
@@ -28,11 +28,9 @@ export async function followScanInk(db: Db, storage: Storage, scanId: string, re
   const fit = register(form, request, chartStartMs);
 
   const image = await decodePage(db, storage, scanId);
-  const hoursOf = (time: Date | null, fallback: number) =>
-    time === null ? fallback : Math.min(form.drumHours, Math.max(0, (time.getTime() - chartStartMs) / MS_PER_HOUR));
+  // The same span as the offline pipeline (npm run digitize), so both follow the same line on the same scan.
   const trace = followInk(image, form, fit, {
-    startHours: hoursOf(scan.chartOn, 0),
-    endHours: hoursOf(scan.chartOff, form.drumHours),
+    ...followSpanHours(form, chartStartMs, scan.chartOn?.getTime() ?? null, scan.chartOff?.getTime() ?? null),
     inkColour: request.inkColour ? (parseHexColour(request.inkColour) ?? undefined) : undefined,
     seed: request.seed,
   });

@@ -6,6 +6,9 @@ import type { ScanDetail } from '@shared/api/scans';
 import { fitRegistration, pixelToReading } from '@shared/domain/registration';
 import { generateChart, type GeneratedChart } from '../../fixtures/generator/generate-chart';
 import { toRegistrationPins } from '../../server/ink-lines/ink-line-reading';
+import { parseChartFile } from '../../scripts/digitize/chart-file';
+import { digitizeChart } from '../../scripts/digitize/digitize-chart';
+import { decodeImage } from '../../scripts/digitize/load-scan';
 import { createChartForm, createPerson, createStation, TEST_WEEKLY_FORM, type TestPerson } from '../helpers/factories';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 
@@ -105,6 +108,36 @@ describe('Follow ink', () => {
       expect(span.fromIndex).toBeGreaterThanOrEqual(-1);
       expect(span.toIndex).toBeLessThanOrEqual(result.knots.length);
     }
+  });
+
+  it('when the Bench follows the ink of a scan and npm run digitize digitizes the same scan, then both give the same line', async () => {
+    const parsed = parseChartFile(chart.chartJson);
+    if (!parsed.ok) throw new Error(parsed.problems.join('; '));
+    const offline = digitizeChart(await decodeImage(chart.image), parsed.value);
+    const inkColour = chart.chartJson['ink'] as { colour: string };
+
+    const response = await follow({ pins, inkColour: inkColour.colour });
+
+    expect(response.status).toBe(200);
+    const result = response.body as FollowInkResult;
+    expect(result.inkModel).toBe(offline.trace.contrastMode);
+    expect(result.coverage).toBeCloseTo(offline.trace.coverage, 9);
+    expect(result.lineWidthPx).toBeCloseTo(offline.trace.lineWidthPx, 9);
+    expect(result.knots.length).toBeGreaterThan(50);
+    // Every knot is a point of the offline line (knots are the line thinned), read through one fit: same pressure.
+    const fit = offline.registration;
+    const { xPx, yPx } = offline.trace;
+    let next = 0;
+    for (const knot of result.knots) {
+      while (next < xPx.length && Math.abs(xPx[next] - knot.xPx) > 1e-6) next++;
+      expect(next).toBeLessThan(xPx.length);
+      expect(Math.abs(yPx[next] - knot.yPx)).toBeLessThan(1e-6);
+      const bench = pixelToReading(TEST_WEEKLY_FORM, fit, knot.xPx, knot.yPx);
+      const digitized = pixelToReading(parsed.value.form, fit, xPx[next], yPx[next]);
+      expect(Math.abs(bench.pressure - digitized.pressure)).toBeLessThan(1e-6);
+      expect(Math.abs(bench.hours - digitized.hours)).toBeLessThan(1e-6);
+    }
+    expect(result.spans.map((s) => s.kind)).toEqual(offline.trace.spans.map((s) => s.kind));
   });
 
   it('when a pin has no time and another no pressure, then it is 400 with the field paths', async () => {

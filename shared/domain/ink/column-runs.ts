@@ -1,6 +1,7 @@
 import type { ChartWindow } from './chart-window';
 import type { InkContrast } from './ink-contrast';
-import { readLut } from './lab-contrast';
+import { type LabLut, readLut } from './lab-contrast';
+import { slidingMax as slidingMaxOf } from './local-strength';
 import type { RawImage } from './raw-image';
 
 /**
@@ -166,6 +167,7 @@ export function findBandRuns(
   const wr = isColour ? contrast.wr : contrast.wr + contrast.wg + contrast.wb;
   const { wg, wb, lut } = contrast;
   let horizontal = new Float32Array(0);
+  const flat = lut ? new LocalPaper(image, window, bandTop, bandBottom, contrast.paper, Math.max(2, Math.round(PAPER_REACH_WIDTHS * widthPx))) : null;
   for (let i = 0; i < columns; i++) {
     const y0 = bandTop[i];
     const y1 = bandBottom[i];
@@ -180,11 +182,10 @@ export function findBandRuns(
       const left = x > 0 ? -channels : 0;
       const right = x < width - 1 ? channels : 0;
       const k = (y * width + x) * channels;
-      if (isColour && lut) {
+      if (isColour && lut && flat) {
         const a = k + left;
         const c = k + right;
-        horizontal[r] =
-          0.25 * (readLut(lut, data[a], data[a + 1], data[a + 2]) + 2 * readLut(lut, data[k], data[k + 1], data[k + 2]) + readLut(lut, data[c], data[c + 1], data[c + 2]));
+        horizontal[r] = 0.25 * (flat.score(lut, data, a, i) + 2 * flat.score(lut, data, k, i) + flat.score(lut, data, c, i));
       } else if (isColour) {
         const a = k + left;
         const c = k + right;
@@ -219,6 +220,65 @@ export function findBandRuns(
   }
   return runs;
 }
+
+/**
+ * The paper's colour near each column, for the lab model: a stain or a yellowed patch tints ink and paper alike, and
+ * scored against the sheet's paper the ink under it falls off the ink's colour segment. Each pixel is brought back
+ * to the sheet's paper by the ratio of the sheet's paper to the local paper per channel (a flat-field correction,
+ * common practice in scanning) before it is scored. The local paper is the per-channel median of a column's band
+ * (the pen line and the printed lines are a small part of it), brightened to the brightest such median within a
+ * few line widths either side: a column that runs along a printed time arc is grid from end to end.
+ */
+class LocalPaper {
+  private readonly factors: Float32Array;
+
+  constructor(image: RawImage, window: ChartWindow, bandTop: Int32Array, bandBottom: Int32Array, paper: { r: number; g: number; b: number }, reach: number) {
+    const columns = bandTop.length;
+    const { data, width, height, channels } = image;
+    const local = [new Float32Array(columns), new Float32Array(columns), new Float32Array(columns)];
+    let values = new Uint8Array(0);
+    // Stains change over millimetres: one median every half line width is enough (and a third of the cost).
+    const stride = Math.max(1, Math.floor(reach / (2 * PAPER_REACH_WIDTHS)));
+    for (let i = 0; i < columns; i += stride) {
+      const y0 = Math.max(0, bandTop[i]);
+      const y1 = Math.min(height, bandBottom[i]);
+      const n = y1 - y0;
+      if (n <= 0) continue;
+      if (values.length < n) values = new Uint8Array(2 * n);
+      for (let c = 0; c < 3; c++) {
+        for (let y = y0; y < y1; y++) {
+          const x = Math.min(width - 1, Math.max(0, window.x0 + i + Math.round(window.rowShift[y])));
+          values[y - y0] = data[(y * width + x) * channels + c];
+        }
+        local[c].fill(values.subarray(0, n).sort()[n >> 1], i, Math.min(columns, i + stride));
+      }
+    }
+    const sheet = [paper.r, paper.g, paper.b];
+    this.factors = new Float32Array(3 * columns);
+    for (let c = 0; c < 3; c++) {
+      const brightest = slidingMaxOf(local[c], reach);
+      for (let i = 0; i < columns; i++) {
+        const ratio = brightest[i] > 0 ? sheet[c] / brightest[i] : 1;
+        // Only a darker local paper is corrected (a stain); within noise of the sheet's paper nothing changes.
+        this.factors[3 * i + c] = ratio > MIN_FLAT_FIELD_RATIO ? Math.min(MAX_FLAT_FIELD_RATIO, ratio) : 1;
+      }
+    }
+  }
+
+  score(lut: LabLut, data: Uint8Array | Uint8ClampedArray, k: number, column: number): number {
+    const fr = this.factors[3 * column];
+    const fg = this.factors[3 * column + 1];
+    const fb = this.factors[3 * column + 2];
+    if (fr === 1 && fg === 1 && fb === 1) return readLut(lut, data[k], data[k + 1], data[k + 2]);
+    return readLut(lut, Math.min(255, data[k] * fr), Math.min(255, data[k + 1] * fg), Math.min(255, data[k + 2] * fb));
+  }
+}
+
+// A local paper within 3 % of the sheet's is the sheet's (noise, JPEG); a stain darker than 1 / 1.6 is not undone.
+const MIN_FLAT_FIELD_RATIO = 1.03;
+const MAX_FLAT_FIELD_RATIO = 1.6;
+// Reach of the brightest-paper window, line widths either side.
+const PAPER_REACH_WIDTHS = 3;
 
 /** How wide the pen line looks down a column: its equivalent width and the length of its runs above threshold. */
 export interface LineWidth {

@@ -1,7 +1,7 @@
 import { pixelToReading } from '../registration';
 import { followInk } from './follow-ink';
 import { slidingMax } from './local-strength';
-import { MARGIN_PX, PAPER, SYNTHETIC_FORM, blankScan, drawStroke, pixelOf, syntheticFit } from './synthetic-scan';
+import { MARGIN_PX, PAPER, SYNTHETIC_FORM, blankScan, drawStroke, paint, pixelOf, syntheticFit } from './synthetic-scan';
 
 // Synthetic scans (synthetic-scan.ts): 40 px per hour, 8 px per hPa, pen 2.5 px wide.
 const PX_PER_HOUR = 40;
@@ -57,6 +57,44 @@ describe('ink against grid by colour', () => {
     expect(trace.spans.filter((s) => s.kind === 'gap')).toEqual([]);
   });
 
+  // Other hues than the bench's (inks and grids invented here): the model is whichever fits, the line is all found.
+  it.each([
+    ['brown ink on a red grid', [226, 120, 110], [110, 62, 30]],
+    ['violet ink on a blue grid', [150, 170, 230], [90, 40, 150]],
+    ['black ink on a green grid', [120, 200, 140], [30, 30, 35]],
+    ['blue ink on an orange grid', [240, 160, 80], [40, 60, 160]],
+  ])('when %s is faded 30–70 %% and its colour is given, then all of it is followed', (_name, grid, ink) => {
+    const image = blankScan(3, grid);
+    drawFaded(image, ink, 1, 23);
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23, inkColour: { r: ink[0], g: ink[1], b: ink[2] } });
+    const { coverage, rmsHpa } = coverageAndRms(trace, 1, 23);
+
+    expect(coverage).toBeGreaterThanOrEqual(0.99);
+    expect(rmsHpa).toBeLessThan(0.1);
+  });
+
+  it('when faded like-coloured ink runs under a brown stain, then the stained stretch is followed too', () => {
+    const image = blankScan(3, BLUE_GRID);
+    drawFaded(image, VIOLET_BLUE_INK, 1, 23);
+    // A tea stain laid over sheet and ink (alpha over, as a stain soaks in on top), hours 8–15 the whole height,
+    // soaking in over its first and last hour and strongest between.
+    const stain = [155, 107, 48];
+    for (let x = Math.floor(pixelOf(8, 0).xPx); x < pixelOf(15, 0).xPx; x++) {
+      const hours = (x - MARGIN_PX) / PX_PER_HOUR;
+      const strength = 0.3 * Math.min(1, hours - 8, 15 - hours);
+      for (let y = 0; y < image.height; y++) paint(image, x, y, stain, strength);
+    }
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23, inkColour: { r: VIOLET_BLUE_INK[0], g: VIOLET_BLUE_INK[1], b: VIOLET_BLUE_INK[2] } });
+    const { coverage, rmsHpa } = coverageAndRms(trace, 1, 23);
+
+    expect(trace.contrastMode).toBe('lab');
+    expect(coverage).toBeGreaterThanOrEqual(0.99);
+    expect(rmsHpa).toBeLessThan(0.1);
+    expect(trace.spans.filter((s) => s.kind === 'gap')).toEqual([]);
+  });
+
   it('when like-coloured ink is on a grey-scale scan, then "darker than the grid" is kept and said', () => {
     const image = blankScan(1, BLUE_GRID);
     drawFaded(image, [40, 30, 120], 1, 23);
@@ -65,6 +103,21 @@ describe('ink against grid by colour', () => {
 
     expect(trace.contrastMode).toBe('grey');
     expect(trace.contrastReason).toMatch(/grey-scale/);
+  });
+
+  it('when a grey-scale scan is stored as RGB and a coloured ink is given, then the scan, not the given colour, keeps "darker than the grid"', () => {
+    const image = blankScan(3, BLUE_GRID);
+    drawFaded(image, VIOLET_BLUE_INK, 1, 23);
+    // Luma in all three channels (ITU-R BT.601 weights, common practice): a grey scan saved as colour.
+    for (let k = 0; k < image.data.length; k += 3) {
+      const luma = Math.round(0.299 * image.data[k] + 0.587 * image.data[k + 1] + 0.114 * image.data[k + 2]);
+      image.data[k] = image.data[k + 1] = image.data[k + 2] = luma;
+    }
+
+    const trace = followInk(image, SYNTHETIC_FORM, fit, { startHours: 1, endHours: 23, inkColour: { r: VIOLET_BLUE_INK[0], g: VIOLET_BLUE_INK[1], b: VIOLET_BLUE_INK[2] } });
+
+    expect(trace.contrastMode).toBe('grey');
+    expect(trace.contrastReason).not.toMatch(/CIELAB/);
   });
 
   it('when ink far from the grid in hue is given, then the linear colour model is kept', () => {

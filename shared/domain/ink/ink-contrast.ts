@@ -278,6 +278,18 @@ function colourContrast(
     }
     grid = normalise([sr, sg, sb]);
   }
+  // A grey scan stored as RGB has no hue to tell ink from grid: darker than the grid is all there is. What counts is
+  // the hue on the scan (its grid and its darkest pixels), not the colour given for the pen: a grey scan of a blue
+  // line is still grey.
+  const gridColour = fullGridColour(dr, dg, db, n, darkLimit, grid, paper);
+  const darkness = new Float32Array(n);
+  for (let i = 0; i < n; i++) darkness[i] = dr[i] + dg[i] + db[i];
+  const darkestLimit = quantile(darkness, 0.997);
+  const darkest = meanShift(dr, dg, db, n, (i) => darkness[i] >= darkestLimit);
+  const hueOf = (c: readonly number[]) => Math.max(c[0], c[1], c[2]) - Math.min(c[0], c[1], c[2]);
+  const paperHue = hueOf(paper);
+  const darkestColour = [paper[0] - darkest[0], paper[1] - darkest[1], paper[2] - darkest[2]];
+  if (Math.max(Math.abs(hueOf(darkestColour) - paperHue), Math.abs(hueOf(gridColour) - paperHue)) < MIN_HUE_LEVELS) return null;
   let ink: [number, number, number];
   if (given) ink = [paper[0] - given.r, paper[1] - given.g, paper[2] - given.b];
   else {
@@ -304,20 +316,10 @@ function colourContrast(
   if (!closeInHue) return linear;
   // Close in hue to the grid. Without a given colour the least grid-like samples may be stains or noise; the
   // darkest few are more likely the pen's core.
-  let labInk = ink;
-  if (!given) {
-    const darkness = new Float32Array(n);
-    for (let i = 0; i < n; i++) darkness[i] = dr[i] + dg[i] + db[i];
-    const limit = quantile(darkness, 0.997);
-    labInk = meanShift(dr, dg, db, n, (i) => darkness[i] >= limit);
-  }
-  const gridColour = fullGridColour(dr, dg, db, n, darkLimit, grid, paper);
+  const labInk = given ? ink : darkest;
   const inkColour: [number, number, number] = [paper[0] - labInk[0], paper[1] - labInk[1], paper[2] - labInk[2]];
   const distance = Math.hypot(inkColour[0] - gridColour[0], inkColour[1] - gridColour[1], inkColour[2] - gridColour[2]);
-  // A grey scan stored as RGB has no hue to tell ink from grid: darker than the grid is all there is.
-  const hueOf = (c: readonly number[]) => Math.max(c[0], c[1], c[2]) - Math.min(c[0], c[1], c[2]);
-  const paperHue = hueOf(paper);
-  if (distance < MIN_INK_GRID_DISTANCE || Math.max(Math.abs(hueOf(inkColour) - paperHue), Math.abs(hueOf(gridColour) - paperHue)) < MIN_HUE_LEVELS) return linear;
+  if (distance < MIN_INK_GRID_DISTANCE) return linear;
   const lab = labContrast(samples, dr, dg, db, n, darkLimit, paper, gridColour, inkColour, given !== undefined, share, source);
   if (linear === null) return lab;
   // Both could work. The linear model is the proven one; the CIELAB model takes over when it lets clearly fewer of

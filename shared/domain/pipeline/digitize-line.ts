@@ -6,6 +6,7 @@ import { applyUncertainty, lineCentringUncertaintyHpa } from '../point-uncertain
 import { toHpa } from '../pressure-units';
 import { fitRegistration, pixelToReading, readingToPixel, type RegistrationFit } from '../registration';
 import type { RegularPoint } from '../resample';
+import { followSpanHours } from './follow-span';
 import { type GivenTimeMark, matchTimeMarks } from './match-time-marks';
 import { fitRobustClock } from './robust-clock';
 import { type CheckReadingUse, fitRobustInstrument, type TimedBarometerReading } from './robust-instrument';
@@ -22,8 +23,6 @@ export const PIPELINE_VERSION = 1;
 const HOUR_MS = 3_600_000;
 /** Width of a barograph pen line on paper, mm (common practice: about 0.4 mm); used when the width was not measured. */
 export const PEN_LINE_WIDTH_MM = 0.4;
-/** The ink is followed a little beyond chart on / chart off: a drum clock error moves the line along the chart. */
-const SPAN_MARGIN_HOURS = 2;
 
 export interface PipelinePin {
   xPx: number;
@@ -110,10 +109,7 @@ export function digitizeLine(input: PipelineInput, options: PipelineOptions = {}
   );
   const line =
     typeof input.ink === 'function'
-      ? input.ink(registration, {
-          startHours: Math.max(0, input.chartOnMs !== null ? hoursOf(input.chartOnMs) - SPAN_MARGIN_HOURS : 0),
-          endHours: Math.min(form.drumHours, input.chartOffMs !== null ? hoursOf(input.chartOffMs) + SPAN_MARGIN_HOURS : form.drumHours),
-        })
+      ? input.ink(registration, followSpanHours(form, chartStartMs, input.chartOnMs, input.chartOffMs))
       : input.ink;
   const { samples: chartSamples, leadingGap, trailingGap } = readLine(form, registration, chartStartMs, line);
 
