@@ -15,6 +15,7 @@ import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import type { RunningServer } from '../../server/server';
 import { startE2eServer } from '../helpers/e2e-server';
 import { chooseOption, launchChromium, signIn, type BrowserSession } from '../helpers/browser';
+import { pollUntil } from '../helpers/poll-until';
 
 
 jest.setTimeout(300_000);
@@ -106,7 +107,7 @@ async function waitForRowCount(page: Page, count: number): Promise<void> {
   await page.waitForFunction((n) => document.querySelectorAll('[data-testid="catalogue-row"]').length === n, count, { timeout: 30_000 });
 }
 
-/** Waits (up to a minute) until no scan of the batch is queued or working. */
+/** Waits (up to a minute, then fails) until no scan of the batch is queued or working. */
 async function waitForBatchDerivatives(baseUrl: string, batchId: string): Promise<void> {
   const signIn = await fetch(`${baseUrl}/api/auth/sign-in`, {
     method: 'POST',
@@ -114,12 +115,14 @@ async function waitForBatchDerivatives(baseUrl: string, batchId: string): Promis
     body: JSON.stringify({ email: 'archivist@isallo.test', password: DEMO_PASSWORD }),
   });
   const { token } = (await signIn.json()) as { token: string };
-  for (let attempt = 0; attempt < 120; attempt++) {
-    const response = await fetch(`${baseUrl}/api/scans?batchId=${encodeURIComponent(batchId)}&pageSize=200`, { headers: { Authorization: `Bearer ${token}` } });
-    const page = (await response.json()) as { items: { derivativeState: string }[] };
-    if (page.items.every((scan) => scan.derivativeState === 'ready' || scan.derivativeState === 'failed')) return;
-    await new Promise((resolve) => setTimeout(resolve, 500));
-  }
+  await pollUntil(
+    async () => {
+      const response = await fetch(`${baseUrl}/api/scans?batchId=${encodeURIComponent(batchId)}&pageSize=200`, { headers: { Authorization: `Bearer ${token}` } });
+      return ((await response.json()) as { items: { derivativeState: string }[] }).items;
+    },
+    (scans) => scans.every((scan) => scan.derivativeState === 'ready' || scan.derivativeState === 'failed'),
+    { timeoutMs: 60_000, intervalMs: 500, describe: (scans) => `batch derivatives still ${JSON.stringify(scans.map((scan) => scan.derivativeState))}` },
+  );
 }
 
 describe('an intake batch from a folder to a searchable catalogue with the close view', () => {

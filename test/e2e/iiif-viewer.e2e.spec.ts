@@ -16,6 +16,7 @@ import { DEMO_PASSWORD } from '../../server/demo/demo-scenario';
 import type { RunningServer } from '../../server/server';
 import { startE2eServer } from '../helpers/e2e-server';
 import { launchChromium, type BrowserSession } from '../helpers/browser';
+import { pollUntil } from '../helpers/poll-until';
 
 const ROOT = resolve(__dirname, '../..');
 const OPENSEADRAGON = join(ROOT, 'node_modules/openseadragon/build/openseadragon/openseadragon.min.js');
@@ -151,11 +152,11 @@ describe('a general-purpose IIIF viewer reads the archive', () => {
     const sent = await api<IntakeFileResult>(server.url, `/api/intake/batches/${batch.body.id}/files`, { method: 'POST', token, body: form });
     if (sent.status !== 201) throw new Error(`upload answered ${sent.status}: ${JSON.stringify(sent.body)}`);
     const scanId = sent.body.scans[0].id;
-    for (let attempt = 0; attempt < 240; attempt++) {
-      scan = (await api<ScanDetail>(server.url, `/api/scans/${scanId}`, { token })).body;
-      if (scan.derivativeState === 'ready' || scan.derivativeState === 'failed') break;
-      await new Promise((r) => setTimeout(r, 500));
-    }
+    scan = await pollUntil(
+      async () => (await api<ScanDetail>(server.url, `/api/scans/${scanId}`, { token })).body,
+      (read) => read.derivativeState === 'ready' || read.derivativeState === 'failed',
+      { timeoutMs: 120_000, intervalMs: 500, describe: (read) => `derivatives still ${read.derivativeState}` },
+    );
     if (scan.derivativeState !== 'ready') throw new Error(`derivatives ended ${scan.derivativeState}: ${scan.derivativeError}`);
   });
 

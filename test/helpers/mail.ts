@@ -1,5 +1,6 @@
 import type { CapturedMail } from '@shared/api/mail';
 import { listCapturedMails } from '../../server/mail/captured-mails';
+import { pollUntil } from './poll-until';
 
 function captureDir(): string {
   const dir = process.env['MAIL_CAPTURE_DIR'];
@@ -18,13 +19,11 @@ export async function mailsTo(address: string): Promise<CapturedMail[]> {
  * checking every 100 ms; fails after `timeoutMs`.
  */
 export async function waitForMailsTo(address: string, count = 1, timeoutMs = 10_000): Promise<CapturedMail[]> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const mails = await mailsTo(address);
-    if (mails.length >= count) return mails;
-    if (Date.now() > deadline) throw new Error(`${mails.length} of ${count} mails to ${address} after ${timeoutMs} ms`);
-    await new Promise((resolve) => setTimeout(resolve, 100));
-  }
+  return pollUntil(
+    () => mailsTo(address),
+    (mails) => mails.length >= count,
+    { timeoutMs, intervalMs: 100, describe: (mails) => `${mails.length} of ${count} mails to ${address}` },
+  );
 }
 
 /** The secret at the end of the first link to `pagePrefix` (e.g. /invitation/) in the mail's text. */

@@ -12,6 +12,7 @@ import type PgBoss from 'pg-boss';
 import { pgBossDerivativeJobs, startJobBoss, type DerivativeJobs } from '../../server/jobs/job-boss';
 import { startWorker, type RunningWorker } from '../../server/jobs/worker';
 import { createFileStorage, type Storage } from '../../server/storage/storage';
+import { pollUntil } from './poll-until';
 
 export const TEST_JWT_SECRET = 'test-secret-at-least-16-characters';
 
@@ -138,14 +139,12 @@ export async function truncateTables(db: Db, tables: (keyof Database)[] = APP_TA
  * checking the rows every 200 ms; fails after `timeoutMs`.
  */
 export async function waitForDerivatives(db: Db, scanIds: string[], timeoutMs = 60_000): Promise<Record<string, string>> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const rows = await db.selectFrom('scan').select(['id', 'derivative_state']).where('id', 'in', scanIds).execute();
-    const states = Object.fromEntries(rows.map((row) => [row.id, row.derivative_state]));
-    if (rows.length === scanIds.length && rows.every((row) => row.derivative_state === 'ready' || row.derivative_state === 'failed')) return states;
-    if (Date.now() > deadline) throw new Error(`derivatives not finished after ${timeoutMs} ms: ${JSON.stringify(states)}`);
-    await new Promise((resolve) => setTimeout(resolve, 200));
-  }
+  const rows = await pollUntil(
+    () => db.selectFrom('scan').select(['id', 'derivative_state']).where('id', 'in', scanIds).execute(),
+    (found) => found.length === scanIds.length && found.every((row) => row.derivative_state === 'ready' || row.derivative_state === 'failed'),
+    { timeoutMs, intervalMs: 200, describe: (found) => `derivatives not finished: ${JSON.stringify(found)}` },
+  );
+  return Object.fromEntries(rows.map((row) => [row.id, row.derivative_state]));
 }
 
 /** Every file under a folder, relative to it (for "nothing was stored" checks). */
