@@ -16,6 +16,7 @@ import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ApiError } from '../../core/http/api-error';
 import { ChartGridDrawing } from '../../shared/chart-grid-drawing/chart-grid-drawing';
 import { chartFormOf, MAX_PREVIEW_LINES, NEW_FORM_VALUES, previewLineCount, valuesOfChartForm } from './chart-form-values';
+import { SavedNotice } from '../../shared/saved-notice/saved-notice';
 
 /**
  * One chart form: its numbers and, beside them, the printed grid drawn from those numbers as you type.
@@ -30,6 +31,7 @@ import { chartFormOf, MAX_PREVIEW_LINES, NEW_FORM_VALUES, previewLineCount, valu
 })
 export class ChartFormPage {
   private readonly api = inject(ChartFormsApi);
+  private readonly savedNotice = inject(SavedNotice);
   private readonly router = inject(Router);
   private readonly destroyRef = inject(DestroyRef);
 
@@ -118,6 +120,7 @@ export class ChartFormPage {
       next: (saved) => {
         this.isSaving.set(false);
         this.saved.set(saved);
+        this.savedNotice.show(`Chart form ${saved.name} saved.`);
         if (!existing) void this.router.navigate(['/archive/chart-forms', saved.id]);
       },
       error: (error: unknown) => {

@@ -10,6 +10,7 @@ import type { InstrumentInput, InstrumentSummary } from '@shared/api/instruments
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { parseUtcDay } from '../../series/series-range';
+import { SavedNotice } from '../../shared/saved-notice/saved-notice';
 
 export interface InstrumentDialogData {
   stationId: string;
@@ -79,6 +80,7 @@ function orderValidator(group: AbstractControl): ValidationErrors | null {
 })
 export class InstrumentDialog {
   private readonly stationsApi = inject(StationsApi);
+  private readonly savedNotice = inject(SavedNotice);
   private readonly dialogRef = inject(MatDialogRef<InstrumentDialog, InstrumentSummary>);
   private readonly destroyRef = inject(DestroyRef);
   protected readonly data = inject<InstrumentDialogData>(MAT_DIALOG_DATA);
@@ -115,7 +117,10 @@ export class InstrumentDialog {
       : this.stationsApi.createInstrument(this.data.stationId, input);
     this.isSaving.set(true);
     request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
-      next: (saved) => this.dialogRef.close(saved),
+      next: (saved) => {
+        this.savedNotice.show('Instrument saved.');
+        this.dialogRef.close(saved);
+      },
       error: (error: unknown) => {
         this.isSaving.set(false);
         this.problem.set(

@@ -9,6 +9,7 @@ import type { ScanDetail } from '@shared/api/scans';
 
 import { scanDetailForTest } from '../../core/api/scan-for-test';
 import { httpErrorInterceptor } from '../../core/http/http-error-interceptor';
+import { SavedNotice } from '../../shared/saved-notice/saved-notice';
 import { ScanMetadataForm } from './scan-metadata-form';
 
 const EMPTY_PAGE = { items: [], total: 0, page: 0, pageSize: 200 };
@@ -39,10 +40,11 @@ describe('ScanMetadataForm', () => {
     return { fixture, loader: TestbedHarnessEnvironment.loader(fixture) };
   }
 
-  it('when the observer and box are changed and saved, then only those fields go with the version read', async () => {
+  it('when the observer and box are changed and saved, then only those fields go with the version read, and the save is confirmed', async () => {
     const { fixture, loader } = await open(scanDetailForTest({ version: 7, box: 'B13' }));
     const saved: ScanDetail[] = [];
     fixture.componentInstance.saved.subscribe((scan) => saved.push(scan));
+    const notice = jest.spyOn(TestBed.inject(SavedNotice), 'show');
 
     await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="meta-observer"]' }))).setValue('R. Pellow');
     await (await loader.getHarness(MatInputHarness.with({ selector: '[data-testid="meta-box"]' }))).setValue('B14');
@@ -53,6 +55,7 @@ describe('ScanMetadataForm', () => {
     expect(request.request.method).toBe('PATCH');
     expect(request.request.body).toEqual({ version: 7, observer: 'R. Pellow', box: 'B14' });
     expect(saved.map((scan) => scan.version)).toEqual([8]);
+    expect(notice).toHaveBeenCalledWith('Catalogue fields saved.');
   });
 
   it('when someone else saved first, then the form says so and offers to reload', async () => {

@@ -18,6 +18,7 @@ import { normalizeInstant } from '@shared/api/parse-instant';
 import { scanMetadataChanges, valuesOfScan } from './scan-metadata-changes';
 import { loadSelectOptions } from '../../shared/select-options/select-options';
 import { SelectOptionsFailure } from '../../shared/select-options/select-options-failure';
+import { SavedNotice } from '../../shared/saved-notice/saved-notice';
 
 function utcInstantValidator(control: AbstractControl<string>): ValidationErrors | null {
   return control.value.trim() === '' || normalizeInstant(control.value) !== null ? null : { utcInstant: true };
@@ -44,6 +45,7 @@ type Problem = { kind: 'conflict'; message: string } | { kind: 'invalid'; messag
 })
 export class ScanMetadataForm {
   private readonly scansApi = inject(ScansApi);
+  private readonly savedNotice = inject(SavedNotice);
   private readonly stationsApi = inject(StationsApi);
   private readonly destroyRef = inject(DestroyRef);
 
@@ -121,6 +123,7 @@ export class ScanMetadataForm {
         next: (updated) => {
           this.isSaving.set(false);
           this.savedVersion.set(updated.version);
+          this.savedNotice.show('Catalogue fields saved.');
           this.saved.emit(updated);
         },
         error: (error: unknown) => {

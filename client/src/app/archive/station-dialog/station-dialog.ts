@@ -13,6 +13,7 @@ import { map, startWith } from 'rxjs';
 import { StationsApi } from '../../core/api/stations-api';
 import { ApiError } from '../../core/http/api-error';
 import { EMPTY_STATION, ianaZoneValidator, numberInRange, stationCodeValidator, stationInputOf, valuesOfStation, wigosIdValidator } from './station-values';
+import { SavedNotice } from '../../shared/saved-notice/saved-notice';
 
 export interface StationDialogData {
   station: StationSummary | null;
@@ -30,6 +31,7 @@ const ZONES: readonly string[] = typeof Intl.supportedValuesOf === 'function' ? 
 })
 export class StationDialog {
   private readonly stationsApi = inject(StationsApi);
+  private readonly savedNotice = inject(SavedNotice);
   private readonly dialogRef = inject(MatDialogRef<StationDialog, StationSummary>);
   private readonly destroyRef = inject(DestroyRef);
   protected readonly data = inject<StationDialogData>(MAT_DIALOG_DATA);
@@ -74,7 +76,10 @@ export class StationDialog {
     this.isSaving.set(true);
     this.problem.set(null);
     request.pipe(takeUntilDestroyed(this.destroyRef)).subscribe({
-      next: (saved) => this.dialogRef.close(saved),
+      next: (saved) => {
+        this.savedNotice.show(`Station ${saved.code} saved.`);
+        this.dialogRef.close(saved);
+      },
       error: (error: unknown) => {
         this.isSaving.set(false);
         if (error instanceof ApiError && error.code === 'version_conflict') {
