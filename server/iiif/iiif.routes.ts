@@ -8,6 +8,8 @@ import * as scansService from '../scans/scans.service';
 import { INFO_MEDIA_TYPE } from './info-document';
 import { PRESENTATION_MEDIA_TYPE } from './manifest-document';
 import * as iiifService from './iiif.service';
+import type { ImageRendering } from './iiif.service';
+import { sendImage } from './image-rendering';
 
 const SEE_OTHER = 303;
 const NO_CONTENT = 204;
@@ -35,7 +37,7 @@ const iiifCors: RequestHandler = (req, res, next) => {
 };
 
 /** Mounted at /iiif, before the client fallback. Archivists and volunteers, with the bearer token. */
-export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: RequestHandler): Router {
+export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: RequestHandler, rendering: ImageRendering): Router {
   const router = Router();
   // Ids and manifests name the configured public base URL, never the request's Host header (which a caller can forge).
   const origin = config.publicUrl;
@@ -65,9 +67,9 @@ export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: Reque
   });
   router.get('/3/:scanId/:region/:size/:rotation/:qualityAndFormat', async (req, res) => {
     const { region, size, rotation, qualityAndFormat } = req.params;
-    const image = await iiifService.getImageFile(db, storage, parseScanId(req.params.scanId), { region, size, rotation, qualityAndFormat });
+    const image = await iiifService.getImage(db, storage, rendering, parseScanId(req.params.scanId), { region, size, rotation, qualityAndFormat });
     // Pixels of a page never change under their URL (masters are never rewritten).
-    res.sendFile(image.filePath, { dotfiles: 'allow', headers: { 'Content-Type': image.contentType, 'Cache-Control': 'private, max-age=86400' } });
+    sendImage(res, image, 'private, max-age=86400');
   });
   router.get('/collection/box/:collection/:box', async (req, res) => {
     const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, origin);
