@@ -14,6 +14,8 @@ export const RENDER_CACHE_FOLDER = 'cache/iiif';
 export class RenderCache {
   private readonly index: LRUCache<string, number>;
   private readonly emptied: Promise<void>;
+  /** Removals of evicted files that the write which caused them waits for. */
+  private readonly removals: Promise<void>[] = [];
 
   constructor(
     private readonly storage: Storage,
@@ -26,7 +28,7 @@ export class RenderCache {
       dispose: (_bytes, key, reason) => {
         // 'set' replaces an entry with the same file, which must stay; only evicted or deleted ones go.
         if (reason !== 'evict' && reason !== 'delete') return;
-        storage.remove(key).catch((error: unknown) => logger.warn({ err: error, key }, 'could not remove an evicted IIIF cache file'));
+        this.removals.push(storage.remove(key).catch((error: unknown) => logger.warn({ err: error, key }, 'could not remove an evicted IIIF cache file')));
       },
     });
     this.emptied = storage.removeFolder(RENDER_CACHE_FOLDER);
@@ -65,5 +67,6 @@ export class RenderCache {
       await fs.rm(tempPath, { force: true });
     }
     this.index.set(key, bytes.length);
+    await Promise.all(this.removals.splice(0));
   }
 }
