@@ -313,6 +313,30 @@ describe('who may call each route', () => {
       successStatus: 200,
       call: (token) => withToken(request(context.app).get(API.seriesCsv).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
     },
+    {
+      name: 'GET /api/stations/:stationId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.stationChangeLog(stationId)), token),
+    },
+    {
+      name: 'GET /api/instruments/:instrumentId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.instrumentChangeLog(instrumentId)), token),
+    },
+    {
+      name: 'GET /api/chart-forms/:chartFormId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.chartFormChangeLog(chartFormId)), token),
+    },
+    {
+      name: 'GET /api/ink-lines/:inkLineId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).get(API.inkLineChangeLog(await freshInkLine('handed_in'))), token),
+    },
     { name: 'GET /api/review', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.review), token) },
     {
       name: 'GET /api/ink-lines/:inkLineId/review',
