@@ -38,6 +38,7 @@ import * as allowReviewAudit from './2026_12_04_0950_allow_review_audit';
 import * as createStationSeries from './2026_12_04_1100_create_station_series';
 import * as recordExistingSeriesLines from './2026_12_04_1110_record_existing_series_lines';
 import * as createApiToken from './2026_12_04_1120_create_api_token';
+import * as createRegisterChange from './2026_12_04_1400_create_register_change';
 
 /**
  * Every migration, by name. A static list rather than a folder scan, so that the same code loads under
@@ -74,6 +75,7 @@ export const MIGRATIONS: Record<string, Migration> = {
   '2026_12_04_1320_create_invitation': createInvitation,
   '2026_12_04_1330_create_password_reset': createPasswordReset,
   '2026_12_04_1340_create_people_change': createPeopleChange,
+  '2026_12_04_1400_create_register_change': createRegisterChange,
   '2026_12_05_1130_add_series_bucket_json': addSeriesBucketJson,
   '2026_12_04_0900_create_ink_line_review': createInkLineReview,
   '2026_12_04_0910_create_station_tracing': createStationTracing,

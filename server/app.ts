@@ -16,6 +16,7 @@ import { refuseNul } from './http/refuse-nul';
 import { securityHeaders } from './http/security';
 import { strictQuery } from './http/strict-query';
 import { iiifRoutes } from './iiif/iiif.routes';
+import { createImageRendering } from './iiif/image-rendering';
 import { inkLinesRoutes, myInkLinesRoutes } from './ink-lines/ink-lines.routes';
 import { instrumentsRoutes } from './instruments/instruments.routes';
 import { intakeRoutes } from './intake/intake.routes';
@@ -44,6 +45,7 @@ export function createApp(given: AppDeps): Express {
   app.use(pinoHttp({ logger: deps.logger, autoLogging: { ignore: (req) => req.url === '/api/health' } }));
   app.use(securityHeaders({ behindTls: deps.config.behindTls }));
 
+  const rendering = createImageRendering(deps.storage, deps.config, deps.logger);
   const authenticate = createAuthenticate(defaultStrategies(deps.db, deps.config.jwtSecret));
   // The series, coverage and station reads also take API tokens (authenticate-read.ts).
   const authenticateRead = createAuthenticateRead(deps.db, authenticate);
@@ -63,16 +65,16 @@ export function createApp(given: AppDeps): Express {
   app.use('/api/scans', authenticate, scansRoutes(deps));
   app.use('/api/people', authenticate, peopleRoutes(deps));
   app.use('/api/invitations', authenticate, invitationsRoutes(deps));
-  app.use('/api/lessons', authenticate, lessonsRoutes(deps));
+  app.use('/api/lessons', authenticate, lessonsRoutes(deps, rendering));
   app.use('/api/ink-lines', authenticate, myInkLinesRoutes(deps));
-  app.use('/api/shared', sharedLessonRoutes(deps));
+  app.use('/api/shared', sharedLessonRoutes(deps, rendering));
   app.use('/api/dev/mails', authenticate, capturedMailsRoutes(deps));
   app.use('/api', seriesRoutes(deps, authenticateRead));
   app.use('/api', openApiRoutes());
   app.use('/api', reviewRoutes(deps, authenticate));
   app.use('/api', deskRoutes(deps, authenticate));
   app.use('/api', apiNotFound);
-  app.use('/iiif', iiifRoutes(deps, authenticate));
+  app.use('/iiif', iiifRoutes(deps, authenticate, rendering));
   app.use('/iiif', apiNotFound);
 
   // The share page itself (the client's /shared/<token>) is kept out of search engines as its API answers are.

@@ -1,7 +1,8 @@
 import type { ChartFormPatch, ChartFormSortKey, ChartFormSummary } from '@shared/api/chart-forms';
 import type { Page, PageQuery } from '@shared/api/paging';
 import { checkChartForm, type ChartForm } from '@shared/domain/chart-form';
-import type { DbOrTrx } from '../db/database';
+import { diffFields, insertRegisterChange } from '../audit/register-change.repository';
+import type { Db, DbOrTrx } from '../db/database';
 import { PG_UNIQUE_VIOLATION, pgErrorCode } from '../db/pg-errors';
 import { AppError, HTTP, validationFailed } from '../errors/app-error';
 import { versionConflict } from '../http/version-conflict';
@@ -26,8 +27,13 @@ function duplicateName(error: unknown): never {
   throw error;
 }
 
-export async function createChartForm(db: DbOrTrx, form: ChartForm): Promise<ChartFormSummary> {
-  return chartFormsRepository.insertChartForm(db, form).catch(duplicateName);
+/** Adds a chart form, with its change log entry in the same transaction. */
+export async function createChartForm(db: Db, form: ChartForm, personId: string): Promise<ChartFormSummary> {
+  return db.transaction().execute(async (trx) => {
+    const created = await chartFormsRepository.insertChartForm(trx, form).catch(duplicateName);
+    await insertRegisterChange(trx, { personId, register: 'chart_form', recordId: created.id, action: 'create', changes: diffFields({}, { ...form }) });
+    return created;
+  });
 }
 
 function inUse(scanCount: number): AppError {
@@ -40,7 +46,17 @@ function inUse(scanCount: number): AppError {
 }
 
 /** Edits a chart form that no scan uses yet; the merged form must pass checkChartForm. */
-export async function updateChartForm(db: DbOrTrx, chartFormId: string, patch: ChartFormPatch): Promise<ChartFormSummary> {
+export async function updateChartForm(db: Db, chartFormId: string, patch: ChartFormPatch, personId: string): Promise<ChartFormSummary> {
+  return db.transaction().execute(async (trx) => {
+    const { version: _version, ...fields } = patch;
+    const before = await getChartForm(trx, chartFormId);
+    const updated = await updateUnusedChartForm(trx, chartFormId, patch);
+    await insertRegisterChange(trx, { personId, register: 'chart_form', recordId: chartFormId, action: 'edit', changes: diffFields({ ...before }, { ...fields }) });
+    return updated;
+  });
+}
+
+async function updateUnusedChartForm(db: DbOrTrx, chartFormId: string, patch: ChartFormPatch): Promise<ChartFormSummary> {
   const { version, ...fields } = patch;
   const current = await getChartForm(db, chartFormId);
   if (current.scanCount > 0) throw inUse(current.scanCount);

@@ -11,6 +11,7 @@ import type { IntakeBatchTable, IntakeFileTable } from '../intake/intake.table';
 import type { LessonShareTable, LessonTable } from '../lessons/lesson.table';
 import type { InvitationTable, PasswordResetTable } from '../people/invitation.table';
 import type { PeopleChangeTable } from '../people/people-change.table';
+import type { RegisterChangeTable } from '../audit/register-change.table';
 import type { PersonRoleTable, PersonTable } from '../people/person.table';
 import type { CrossTraceAgreementTable, InkLineReviewTable } from '../review/review.table';
 import type { ScanTable } from '../scans/scan.table';
@@ -40,6 +41,7 @@ export interface Database {
   invitation: InvitationTable;
   password_reset: PasswordResetTable;
   people_change: PeopleChangeTable;
+  register_change: RegisterChangeTable;
   ink_line_review: InkLineReviewTable;
   cross_trace_agreement: CrossTraceAgreementTable;
   station_tracing: StationTracingTable;

@@ -46,6 +46,8 @@ export function errorHandler(logger: Logger, maxUploadBytes: number): ErrorReque
     if (known) {
       const body: ApiErrorBody = { error: { code: known.code, message: known.message } };
       if (known.details !== undefined) body.error.details = known.details;
+      // A throttle of our own (not express-rate-limit, which sets its own) still tells the client when to come back.
+      if (known.status === HTTP.tooManyRequests && !res.getHeader('Retry-After')) res.set('Retry-After', '1');
       res.status(known.status).json(body);
       return;
     }

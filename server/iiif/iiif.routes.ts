@@ -10,6 +10,8 @@ import { scanHasSeriesLine } from '../series/series-membership';
 import { INFO_MEDIA_TYPE } from './info-document';
 import { PRESENTATION_MEDIA_TYPE } from './manifest-document';
 import * as iiifService from './iiif.service';
+import type { ImageRendering } from './iiif.service';
+import { sendImage } from './image-rendering';
 
 const SEE_OTHER = 303;
 const NO_CONTENT = 204;
@@ -51,7 +53,7 @@ function readsAsClimatologist(req: Request): boolean {
  * can see in a series: an approved line of a scan that is not withdrawn. Manifests and box collections
  * describe the catalogue, which is the archive's, so they stay with archivists and volunteers.
  */
-export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: RequestHandler): Router {
+export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: RequestHandler, rendering: ImageRendering): Router {
   const router = Router();
   // Ids and manifests name the configured public base URL, never the request's Host header (which a caller can forge).
   const origin = config.publicUrl;
@@ -90,9 +92,9 @@ export function iiifRoutes({ db, storage, config }: AppDeps, authenticate: Reque
   });
   router.get('/3/:scanId/:region/:size/:rotation/:qualityAndFormat', async (req, res) => {
     const { region, size, rotation, qualityAndFormat } = req.params;
-    const image = await iiifService.getImageFile(db, storage, parseScanId(req.params.scanId), { region, size, rotation, qualityAndFormat });
+    const image = await iiifService.getImage(db, storage, rendering, parseScanId(req.params.scanId), { region, size, rotation, qualityAndFormat });
     // Pixels of a page never change under their URL (masters are never rewritten).
-    res.sendFile(image.filePath, { dotfiles: 'allow', headers: { 'Content-Type': image.contentType, 'Cache-Control': 'private, max-age=86400' } });
+    sendImage(res, image, 'private, max-age=86400');
   });
   router.get('/collection/box/:collection/:box', mayWorkOnScans, async (req: Request<{ collection: string; box: string }>, res: Response) => {
     const collection = await iiifService.getBoxCollection(db, req.params.collection, req.params.box, origin);

@@ -8,7 +8,10 @@ import * as scansRepository from '../scans/scans.repository';
 import type { ScanFile } from '../scans/scans.repository';
 import type { Storage } from '../storage/storage';
 import { parseImageRequest, type ImageRequest } from './image-request';
+import { isAdvertisedRequest } from './advertised-image';
 import { buildInfoDocument, MAX_AREA_PX, type InfoDocument } from './info-document';
+import { RENDER_CACHE_FOLDER, type RenderCache } from './render-cache';
+import type { RenderGate } from './render-gate';
 import { buildBoxCollection, buildManifest } from './manifest-document';
 
 export const CONTENT_TYPES: Record<ImageRequest['format'], string> = { jpg: 'image/jpeg', png: 'image/png', webp: 'image/webp' };
@@ -47,51 +50,66 @@ async function exists(filePath: string): Promise<boolean> {
   );
 }
 
+/** Where an image answer comes from: a file the worker made (never removed), or bytes rendered or read from the cache. */
+export type ImageAnswer = { contentType: string } & ({ filePath: string } | { bytes: Buffer });
+
+/** What an image request needs beside the database and storage: the bounded cache and the render throttle. */
+export interface ImageRendering {
+  cache: RenderCache;
+  gate: RenderGate;
+}
+
 /**
- * The file answering an image request: the worker's tile when the pyramid has that exact image, else a
- * cached earlier answer, else rendered now by sharp from the page's pixels and cached (written atomically).
+ * The answer to an image request: the worker's tile when the pyramid has that exact image; else, for a tile
+ * or size the info.json advertises, the cached answer or one rendered now and cached; else one rendered now
+ * and not kept. Every render waits its turn at the gate.
  */
-export async function getImageFile(
+export async function getImage(
   db: Db,
   storage: Storage,
+  rendering: ImageRendering,
   scanId: string,
   parameters: { region: string; size: string; rotation: string; qualityAndFormat: string },
-): Promise<{ filePath: string; contentType: string }> {
+): Promise<ImageAnswer> {
   const file = await findFile(db, scanId);
   const request = parseImageRequest(parameters, file.widthPx, file.heightPx, { maxArea: MAX_AREA_PX });
   const contentType = CONTENT_TYPES[request.format];
-  const folder = storage.derivativesKey(file.sha256, file.pageIndex);
-  const isTileShaped = request.rotationDegrees === 0 && !request.isMirrored && (request.quality === 'default' || request.quality === 'color') && request.format === 'jpg';
-  if (isTileShaped) {
+  const isAdvertised = isAdvertisedRequest(request, file.widthPx, file.heightPx);
+  if (isAdvertised) {
     const [region, size] = request.canonicalPath.split('/');
-    const tilePath = storage.pathOf(path.posix.join(folder, TILES_FOLDER, region, size, '0', 'default.jpg'));
+    const tilePath = storage.pathOf(path.posix.join(storage.derivativesKey(file.sha256, file.pageIndex), TILES_FOLDER, region, size, '0', 'default.jpg'));
     if (await exists(tilePath)) return { filePath: tilePath, contentType };
   }
-  const cacheKey = path.posix.join(folder, 'rendered', request.canonicalPath.replace(/[/!]/g, (char) => (char === '/' ? '_' : 'm')));
-  const cachedPath = storage.pathOf(cacheKey);
-  if (await exists(cachedPath)) return { filePath: cachedPath, contentType };
+  const cacheKey = path.posix.join(
+    RENDER_CACHE_FOLDER,
+    `${file.sha256}-p${file.pageIndex}`,
+    request.canonicalPath.replace(/[/!]/g, (char) => (char === '/' ? '_' : 'm')),
+  );
+  if (isAdvertised) {
+    const cached = await rendering.cache.read(cacheKey);
+    if (cached) return { bytes: cached, contentType };
+  }
+  const bytes = await rendering.gate.run(() => renderImage(storage, file, request));
+  if (isAdvertised) await rendering.cache.write(cacheKey, bytes);
+  return { bytes, contentType };
+}
 
+/** Renders the request from the page's pixels with sharp. */
+async function renderImage(storage: Storage, file: ScanFile, request: ImageRequest): Promise<Buffer> {
   if (!(await storage.exists(file.storageKey))) {
     throw new AppError(HTTP.notFound, 'not_found', 'The master file of this scan is missing from storage; its image cannot be made.');
   }
   const source = await findPageSource(storage, file);
   if (!source) throw new AppError(HTTP.conflict, 'derivatives_not_ready', 'The pages of this PDF are still being rendered; try again when its derivatives are ready.');
-  const tempPath = storage.newTempPath(`.${request.format}`);
-  try {
-    let image = source.open();
-    if (!request.isFullRegion) image = image.extract({ left: request.region.x, top: request.region.y, width: request.region.width, height: request.region.height });
-    image = image.resize(request.width, request.height, { fit: 'fill' });
-    if (request.isMirrored) image = image.flop();
-    if (request.rotationDegrees !== 0) image = image.rotate(request.rotationDegrees);
-    if (request.quality === 'gray' || request.quality === 'bitonal') image = image.grayscale().toColourspace('b-w');
-    if (request.quality === 'bitonal') image = image.threshold(128);
-    if (request.format === 'jpg') image = image.flatten({ background: '#ffffff' }).jpeg({ quality: 85 });
-    else if (request.format === 'png') image = image.png();
-    else image = image.webp({ quality: 85 });
-    await image.toFile(tempPath);
-    await storage.putCache(tempPath, cacheKey);
-  } finally {
-    await fs.rm(tempPath, { force: true });
-  }
-  return { filePath: cachedPath, contentType };
+  let image = source.open();
+  if (!request.isFullRegion) image = image.extract({ left: request.region.x, top: request.region.y, width: request.region.width, height: request.region.height });
+  image = image.resize(request.width, request.height, { fit: 'fill' });
+  if (request.isMirrored) image = image.flop();
+  if (request.rotationDegrees !== 0) image = image.rotate(request.rotationDegrees);
+  if (request.quality === 'gray' || request.quality === 'bitonal') image = image.grayscale().toColourspace('b-w');
+  if (request.quality === 'bitonal') image = image.threshold(128);
+  if (request.format === 'jpg') image = image.flatten({ background: '#ffffff' }).jpeg({ quality: 85 });
+  else if (request.format === 'png') image = image.png();
+  else image = image.webp({ quality: 85 });
+  return image.toBuffer();
 }

@@ -88,11 +88,15 @@ export async function handInDraft(db: DbOrTrx, draftId: string, line: HandedInLi
     .executeTakeFirstOrThrow();
 }
 
-/** The caller's draft on a scan, locked for the rest of the transaction. */
-export async function findOwnDraftForUpdate(db: DbOrTrx, scanId: string, authorId: string): Promise<{ id: string; version: number } | undefined> {
+/** The caller's draft on a scan, locked for the rest of the transaction; a reworked line still holds its earlier hand-in. */
+export async function findOwnDraftForUpdate(
+  db: DbOrTrx,
+  scanId: string,
+  authorId: string,
+): Promise<{ id: string; version: number; pin_set_id: string | null; handed_in_at: Date | null; knots: WorkKnot[]; result: StoredInkLineResult | null } | undefined> {
   return db
     .selectFrom('ink_line')
-    .select(['id', 'version'])
+    .select(['id', 'version', 'pin_set_id', 'handed_in_at', 'knots', 'result'])
     .where('scan_id', '=', scanId)
     .where('author_id', '=', authorId)
     .where('status', '=', 'draft')

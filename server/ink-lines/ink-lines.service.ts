@@ -13,6 +13,8 @@ import { checkMayHandIn, compareWithOtherLines } from '../review/cross-trace';
 import * as inkLinesRepository from './ink-lines.repository';
 import { checkInsideImage, checkKnotTimes, checkRegistration } from './hand-in-checks';
 import { computeHandIn, savedView, seriesPointsOf, storedResultOf } from './ink-line-reading';
+import { diffFields, insertRegisterChange } from '../audit/register-change.repository';
+import type { StoredInkLineResult } from './ink-line.table';
 
 /** 409 draft_version_conflict: the draft changed (another tab, or a hand-in) since this page last saved it. */
 function draftVersionConflict(currentVersion: number | null): AppError {
@@ -97,6 +99,16 @@ export async function handInInkLine(db: Db, scanId: string, handIn: HandInReques
       ? await inkLinesRepository.handInDraft(trx, draft.id, line)
       : await inkLinesRepository.insertHandedInLine(trx, { ...line, scanId, authorId });
     await seriesRepository.insertSeriesPoints(trx, inkLine.id, scan.stationId, points);
+    if (draft?.handed_in_at) {
+      // A reworked line handed in again replaces its earlier result: the log keeps what it was (issue 13 finding 7).
+      await insertRegisterChange(trx, {
+        personId: authorId,
+        register: 'ink_line',
+        recordId: inkLine.id,
+        action: 'hand_in_again',
+        changes: diffFields(handInFacts(draft.pin_set_id, draft.handed_in_at, draft.knots.length, draft.result?.summary ?? null), handInFacts(pinSetId, new Date(), handIn.work.knots.length, stored.summary)),
+      });
+    }
     await compareWithOtherLines(trx, scanId, inkLine.id);
     await releaseClaim(trx, scanId, authorId);
     if (scan.status !== 'traced') {
@@ -105,6 +117,19 @@ export async function handInInkLine(db: Db, scanId: string, handIn: HandInReques
     }
     return savedView({ ...inkLine, scanId }, stored);
   });
+}
+
+/** What a hand-in left on its line, as the register change log records it. */
+function handInFacts(pinSetId: string | null, handedInAt: Date, knotCount: number, summary: StoredInkLineResult['summary'] | null): Record<string, unknown> {
+  return {
+    pinSetId,
+    handedInAt: handedInAt.toISOString(),
+    knotCount,
+    seriesPointCount: summary?.seriesPointCount ?? null,
+    registrationRmsHpa: summary?.registrationRmsHpa ?? null,
+    registrationRmsMinutes: summary?.registrationRmsMinutes ?? null,
+    pipelineVersion: summary?.pipelineVersion ?? null,
+  };
 }
 
 /** Work stored before drafts existed is `{}`: rebuilt from the pin set and the knots. */

@@ -1,6 +1,7 @@
 import { checkInstrumentDates, type InstrumentInput, type InstrumentPatch, type InstrumentSortKey, type InstrumentSummary } from '@shared/api/instruments';
 import type { Page, PageQuery } from '@shared/api/paging';
-import type { DbOrTrx } from '../db/database';
+import { diffFields, insertRegisterChange } from '../audit/register-change.repository';
+import type { Db, DbOrTrx } from '../db/database';
 import { PG_CHECK_VIOLATION, pgErrorCode } from '../db/pg-errors';
 import { AppError, HTTP, validationFailed } from '../errors/app-error';
 import { versionConflict } from '../http/version-conflict';
@@ -20,12 +21,26 @@ export async function getInstrument(db: DbOrTrx, instrumentId: string): Promise<
   return instrument;
 }
 
-export async function createInstrument(db: DbOrTrx, stationId: string, input: InstrumentInput): Promise<InstrumentSummary> {
-  await stationsService.getStation(db, stationId);
-  return instrumentsRepository.insertInstrument(db, stationId, input);
+/** Adds an instrument to a station, with its change log entry in the same transaction. */
+export async function createInstrument(db: Db, stationId: string, input: InstrumentInput, personId: string): Promise<InstrumentSummary> {
+  return db.transaction().execute(async (trx) => {
+    await stationsService.getStation(trx, stationId);
+    const created = await instrumentsRepository.insertInstrument(trx, stationId, input);
+    await insertRegisterChange(trx, { personId, register: 'instrument', recordId: created.id, action: 'create', changes: diffFields({}, { stationId, ...input }) });
+    return created;
+  });
 }
 
-export async function updateInstrument(db: DbOrTrx, instrumentId: string, patch: InstrumentPatch): Promise<InstrumentSummary> {
+/** Edits an instrument at the version read; the fields that changed go in its change log in the same transaction. */
+export async function updateInstrument(db: Db, instrumentId: string, patch: InstrumentPatch, personId: string): Promise<InstrumentSummary> {
+  return db.transaction().execute(async (trx) => {
+    const updated = await updateInstrumentRow(trx, instrumentId, patch);
+    await insertRegisterChange(trx, { personId, register: 'instrument', recordId: instrumentId, action: 'edit', changes: updated.changes });
+    return updated.instrument;
+  });
+}
+
+async function updateInstrumentRow(db: DbOrTrx, instrumentId: string, patch: InstrumentPatch): Promise<{ instrument: InstrumentSummary; changes: ReturnType<typeof diffFields> }> {
   const { version, ...fields } = patch;
   const current = await getInstrument(db, instrumentId);
   const dateProblem = checkInstrumentDates(
@@ -38,6 +53,6 @@ export async function updateInstrument(db: DbOrTrx, instrumentId: string, patch:
     if (pgErrorCode(error) === PG_CHECK_VIOLATION) throw validationFailed({ removedOn: 'removedOn must not be before installedOn' });
     throw error;
   });
-  if (updated) return updated;
+  if (updated) return { instrument: updated, changes: diffFields({ ...current }, { ...fields }) };
   throw versionConflict('instrument', (await getInstrument(db, instrumentId)).version);
 }

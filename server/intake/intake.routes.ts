@@ -25,7 +25,9 @@ const batchId = (value: unknown) => parsePathId(value, 'intake_batch_not_found',
 function parseLabel(body: unknown): string {
   const reader = new FieldReader(body);
   const label = reader.text('label', { isRequired: true, maxLength: 200 });
-  if (!reader.isValid || label === undefined) throw validationFailed({ label: 'label is required (up to 200 characters)', ...reader.details }, 'The batch needs a label.');
+  reader.refuseUnreadKeys();
+  if (label === undefined) reader.problem('label', 'label is required (up to 200 characters)');
+  if (!reader.isValid || label === undefined) throw validationFailed(reader.details, 'The batch needs a label.');
   return label;
 }
 

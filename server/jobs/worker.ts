@@ -2,6 +2,7 @@ import { sql } from 'kysely';
 import type PgBoss from 'pg-boss';
 import type { Logger } from 'pino';
 import type { Db } from '../db/database';
+import { markDerivativesReady } from '../scans/ready-after-derivatives';
 import * as scansRepository from '../scans/scans.repository';
 import type { Storage } from '../storage/storage';
 import { DERIVATIVES_QUEUE, JOB_SCHEMA, pgBossDerivativeJobs, type DerivativeJobData } from './job-boss';
@@ -61,7 +62,7 @@ async function runJob(deps: WorkerDeps, job: PgBoss.JobWithMetadata<DerivativeJo
     deps.logger.warn({ scanId, attempt: job.retryCount + 1, err: error }, 'derivatives failed');
     throw error;
   }
-  await scansRepository.setDerivativeState(deps.db, scanId, 'ready');
+  await markDerivativesReady(deps.db, scanId);
   deps.logger.info({ scanId }, 'derivatives ready');
 }
 

@@ -20,6 +20,8 @@ import { AppError, HTTP, validationFailed } from '../errors/app-error';
 import { valueOrThrow } from '../http/parse-body';
 import { isUuid, readPageQuery } from '../http/parse-query';
 import * as iiifService from '../iiif/iiif.service';
+import type { ImageRendering } from '../iiif/iiif.service';
+import { sendImage } from '../iiif/image-rendering';
 import type { Db } from '../db/database';
 import type { Storage } from '../storage/storage';
 import { sharedLinkLimit } from '../http/rate-limits';
@@ -71,19 +73,19 @@ function readVersion(query: Record<string, unknown>): number {
 
 
 /** Sends a region's JPEG through the server's IIIF image code (cached and tiled as any IIIF answer). */
-async function sendRegionImage(db: Db, storage: Storage, res: Response, image: RegionImage, cacheControl: string): Promise<void> {
+async function sendRegionImage(db: Db, storage: Storage, rendering: ImageRendering, res: Response, image: RegionImage, cacheControl: string): Promise<void> {
   const { xPx, yPx, widthPx, heightPx } = image.region;
-  const file = await iiifService.getImageFile(db, storage, image.scanId, {
+  const answer = await iiifService.getImage(db, storage, rendering, image.scanId, {
     region: `${xPx},${yPx},${widthPx},${heightPx}`,
     size: regionImageSize(image.region),
     rotation: '0',
     qualityAndFormat: 'default.jpg',
   });
-  res.sendFile(file.filePath, { dotfiles: 'allow', headers: { 'Content-Type': file.contentType, 'Cache-Control': cacheControl } });
+  sendImage(res, answer, cacheControl);
 }
 
 /** Mounted at /api/lessons behind authenticate: teachers build lessons, admins may change any. */
-export function lessonsRoutes({ db, storage, config }: AppDeps): Router {
+export function lessonsRoutes({ db, storage, config }: AppDeps, rendering: ImageRendering): Router {
   const router = Router();
   router.use(requireRoles('teacher', 'admin'));
 
@@ -113,7 +115,7 @@ export function lessonsRoutes({ db, storage, config }: AppDeps): Router {
   });
   router.get('/:lessonId/regions/:index/image.jpg', async (req, res) => {
     const image = await lessonsService.findTeacherRegion(db, caller(req), lessonId(req.params.lessonId), regionIndex(req.params.index));
-    await sendRegionImage(db, storage, res, image, 'private, max-age=300');
+    await sendRegionImage(db, storage, rendering, res, image, 'private, max-age=300');
   });
   router.get('/:lessonId/annotations', async (req, res) => {
     const lesson = await lessonsService.getLesson(db, caller(req), lessonId(req.params.lessonId));
@@ -147,7 +149,7 @@ export const noIndex: RequestHandler = (_req, res, next) => {
  * Mounted at /api/shared, with no sign-in: a share link's token reads its one lesson and the chart regions of
  * that lesson, nothing else. Rate-limited per address.
  */
-export function sharedLessonRoutes({ db, storage }: AppDeps): Router {
+export function sharedLessonRoutes({ db, storage }: AppDeps, rendering: ImageRendering): Router {
   const router = Router();
   router.use(
     noIndex,
@@ -160,7 +162,7 @@ export function sharedLessonRoutes({ db, storage }: AppDeps): Router {
   router.get('/:token/regions/:index/image.jpg', async (req, res) => {
     const image = await lessonsService.findSharedRegion(db, shareToken(req.params.token), regionIndex(req.params.index));
     // no-store: a revoked link must stop showing the chart at once, not after a cache's lifetime.
-    await sendRegionImage(db, storage, res, image, 'no-store');
+    await sendRegionImage(db, storage, rendering, res, image, 'no-store');
   });
   return router;
 }

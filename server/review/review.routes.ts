@@ -1,7 +1,9 @@
 import { Router, type RequestHandler, type Response } from 'express';
 import type { Page } from '@shared/api/paging';
 import { type InkLineDecisionResult, parseInkLineReturnInput, parseInkLineVersionInput, type ReviewDetail, type ReviewRow } from '@shared/api/review';
+import type { RegisterChangeLogEntry } from '@shared/api/register-changes';
 import type { AppDeps } from '../app-deps';
+import { listRegisterChangeLog } from '../audit/register-change.service';
 import { requireRoles, signedInPerson } from '../auth/require-roles';
 import { AppError, HTTP } from '../errors/app-error';
 import { valueOrThrow } from '../http/parse-body';
@@ -26,6 +28,10 @@ export function reviewRoutes({ db }: AppDeps, authenticate: RequestHandler): Rou
 
   router.get('/ink-lines/:inkLineId/review', authenticate, archivist, async (req, res: Response<ReviewDetail>) => {
     res.json(await reviewService.getReviewDetail(db, parseInkLineId(req.params.inkLineId)));
+  });
+
+  router.get('/ink-lines/:inkLineId/change-log', authenticate, requireRoles('archivist', 'admin'), async (req, res: Response<Page<RegisterChangeLogEntry>>) => {
+    res.json(await listRegisterChangeLog(db, 'ink_line', parseInkLineId(req.params.inkLineId), readPageQuery(req.query, [] as const)));
   });
 
   router.post('/ink-lines/:inkLineId/approve', authenticate, archivist, async (req, res: Response<InkLineDecisionResult>) => {

@@ -1,3 +1,4 @@
+import { refuseUnknownKeys } from '@shared/api/field-reader';
 import { readInstant } from '@shared/api/parse-instant';
 import { normalizeTags } from '@shared/api/parse-scan-metadata';
 import { SCAN_STATUSES, type ScanStatus } from '@shared/api/scans';
@@ -7,6 +8,9 @@ import { isUuid } from '../http/parse-query';
 import type { ScanFilter } from './scans.repository';
 import type { ParsedUploadFields } from './scans.service';
 
+/** The form fields beside the file part of an upload. */
+const UPLOAD_FIELDS = ['stationId', 'chartFormId', 'chartStart'];
+
 function asRecord(body: unknown): Record<string, unknown> {
   return (typeof body === 'object' && body !== null ? body : {}) as Record<string, unknown>;
 }
@@ -15,6 +19,7 @@ function asRecord(body: unknown): Record<string, unknown> {
 export function parseUploadFields(body: unknown, hasFile: boolean): Required<Omit<ParsedUploadFields, 'batchId'>> {
   const record = asRecord(body);
   const details: Record<string, string> = {};
+  refuseUnknownKeys(record, UPLOAD_FIELDS, details);
   if (!hasFile) details['file'] = 'a scan file is required in the "file" part';
   if (!isUuid(record['stationId'])) details['stationId'] = 'stationId must be a station id';
   if (!isUuid(record['chartFormId'])) details['chartFormId'] = 'chartFormId must be a chart form id';
@@ -33,6 +38,7 @@ export function parseIntakeFields(body: unknown, hasFile: boolean): Omit<ParsedU
   const record = asRecord(body);
   const details: Record<string, string> = {};
   const fields: Omit<ParsedUploadFields, 'batchId'> = {};
+  refuseUnknownKeys(record, UPLOAD_FIELDS, details);
   if (!hasFile) details['file'] = 'a scan file is required in the "file" part';
   const present = (key: string) => record[key] !== undefined && record[key] !== '';
   if (present('stationId')) {

@@ -64,7 +64,6 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
       const isSinglePage = master.pages.length === 1;
       // A chart start belongs to one chart: on a many-page master it is set page by page later.
       const chartStart = isSinglePage ? (fields.chartStart ?? null) : null;
-      const isReady = Boolean(fields.stationId && fields.chartFormId && chartStart);
       const rows: Insertable<ScanTable>[] = master.pages.map((page, pageIndex) => ({
         sha256,
         storage_key: stored.key,
@@ -80,7 +79,9 @@ export async function uploadMaster(deps: ScanDeps, file: ReceivedFile, fields: P
         chart_form_id: fields.chartFormId ?? null,
         chart_start: chartStart,
         batch_id: fields.batchId ?? null,
-        status: isReady ? 'ready_to_trace' : 'received',
+        // Never ready to trace before its derivatives exist (the status route's rule): the worker moves a
+        // scan uploaded with station, chart form and chart start once they are made (ready-after-derivatives.ts).
+        status: 'received',
         original_name: file.originalName,
         uploaded_by: uploadedBy,
       }));

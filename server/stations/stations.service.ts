@@ -1,6 +1,7 @@
 import type { Page, PageQuery } from '@shared/api/paging';
 import type { StationInput, StationPatch, StationSortKey, StationSummary } from '@shared/api/stations';
-import type { DbOrTrx } from '../db/database';
+import { diffFields, insertRegisterChange } from '../audit/register-change.repository';
+import type { Db, DbOrTrx } from '../db/database';
 import { PG_UNIQUE_VIOLATION, pgConstraint, pgErrorCode } from '../db/pg-errors';
 import { AppError, HTTP } from '../errors/app-error';
 import { versionConflict } from '../http/version-conflict';
@@ -29,14 +30,23 @@ function uniqueViolation(error: unknown): never {
   throw error;
 }
 
-export async function createStation(db: DbOrTrx, input: StationInput): Promise<StationSummary> {
-  return stationsRepository.insertStation(db, input).catch(uniqueViolation);
+/** Adds a station, with its change log entry in the same transaction. */
+export async function createStation(db: Db, input: StationInput, personId: string): Promise<StationSummary> {
+  return db.transaction().execute(async (trx) => {
+    const created = await stationsRepository.insertStation(trx, input).catch(uniqueViolation);
+    await insertRegisterChange(trx, { personId, register: 'station', recordId: created.id, action: 'create', changes: diffFields({}, { ...input }) });
+    return created;
+  });
 }
 
-export async function updateStation(db: DbOrTrx, stationId: string, patch: StationPatch): Promise<StationSummary> {
+/** Edits a station at the version read; the fields that changed go in its change log, before and after, in the same transaction. */
+export async function updateStation(db: Db, stationId: string, patch: StationPatch, personId: string): Promise<StationSummary> {
   const { version, ...fields } = patch;
-  const updated = await stationsRepository.updateStation(db, stationId, version, fields).catch(uniqueViolation);
-  if (updated) return updated;
-  const current = await getStation(db, stationId);
-  throw versionConflict('station', current.version);
+  return db.transaction().execute(async (trx) => {
+    const before = await getStation(trx, stationId);
+    const updated = await stationsRepository.updateStation(trx, stationId, version, fields).catch(uniqueViolation);
+    if (!updated) throw versionConflict('station', (await getStation(trx, stationId)).version);
+    await insertRegisterChange(trx, { personId, register: 'station', recordId: stationId, action: 'edit', changes: diffFields({ ...before }, { ...fields }) });
+    return updated;
+  });
 }

@@ -1,3 +1,4 @@
+import { refuseUnknownKeys } from './field-reader';
 import type { PinInput } from './ink-lines';
 
 export function isFiniteNumber(x: unknown): x is number {
@@ -118,10 +119,15 @@ function readOptionalInstant(raw: unknown, path: string, details: Record<string,
  * Checks a BenchWork from the wire. A draft may be unfinished (any number of pins and knots, marks without
  * their time yet); `forHandIn` adds what a hand-in needs. Paths are dotted (`pins.2.time`), as everywhere.
  */
-export function parseBenchWork(x: unknown, options: { forHandIn?: boolean } = {}): Parsed<BenchWork> {
+/** The fields of a Bench work object. */
+export const BENCH_WORK_KEYS = ['step', 'pins', 'knots', 'timeMarks', 'chartOn', 'chartOff', 'checkReadings'] as const;
+
+export function parseBenchWork(x: unknown, options: { forHandIn?: boolean; otherKeys?: readonly string[] } = {}): Parsed<BenchWork> {
   const details: Record<string, string> = {};
   if (typeof x !== 'object' || x === null || Array.isArray(x)) return { ok: false, details: { '': 'work must be an object' } };
   const body = x as Record<string, unknown>;
+  // `otherKeys`: fields the caller reads beside the work in the same object (a hand-in's draftVersion).
+  refuseUnknownKeys(body, [...BENCH_WORK_KEYS, ...(options.otherKeys ?? [])], details);
   let step: BenchStep = 'pin';
   if (body['step'] !== undefined) {
     if (typeof body['step'] === 'string' && (BENCH_STEPS as readonly string[]).includes(body['step'])) step = body['step'] as BenchStep;

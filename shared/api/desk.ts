@@ -99,6 +99,7 @@ export function parseStationTracing(body: unknown): Parsed<{ inkLinesRequired: 1
   const reader = new FieldReader(body);
   const required = reader.integer('inkLinesRequired', 1);
   if (required === undefined || (required !== 1 && required !== 2)) reader.problem('inkLinesRequired', 'inkLinesRequired must be 1 or 2');
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return { ok: true, value: { inkLinesRequired: required as 1 | 2 } };
 }
@@ -118,12 +119,13 @@ export function parseTracePriorityInput(body: unknown): Parsed<TracePriorityInpu
   const scanId = reader.nullableId('scanId') ?? undefined;
   const collection = reader.text('collection');
   const box = reader.text('box');
-  const raw = (body as Record<string, unknown> | null)?.['priority'];
+  const raw = reader.raw('priority');
   const priority = typeof raw === 'number' && Number.isInteger(raw) && Math.abs(raw) <= MAX_TRACE_PRIORITY ? raw : undefined;
   if (priority === undefined) reader.problem('priority', `priority must be a whole number from -${MAX_TRACE_PRIORITY} to ${MAX_TRACE_PRIORITY}`);
   if (scope === 'station' && !stationId) reader.problem('stationId', 'a station priority needs stationId');
   if (scope === 'scan' && !scanId) reader.problem('scanId', 'a scan priority needs scanId');
   if (scope === 'box' && !box) reader.problem('box', 'a box priority needs box (and collection, when the box has one)');
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return { ok: true, value: { scope: scope!, stationId, scanId, collection: collection ?? '', box, priority: priority as number } };
 }

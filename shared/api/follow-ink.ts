@@ -1,3 +1,4 @@
+import { refuseUnknownKeys } from './field-reader';
 import { isFiniteNumber, readPins, type PinInput } from './ink-lines';
 
 /** What the Bench sends to let Follow ink find the pen line: the pins, and optionally a pixel on the line and its colour. */
@@ -49,6 +50,7 @@ export function parseFollowInkRequest(
   const details: Record<string, string> = {};
   if (typeof x !== 'object' || x === null) return { ok: false, details: { '': 'body must be an object' } };
   const body = x as Record<string, unknown>;
+  refuseUnknownKeys(body, ['pins', 'seed', 'inkColour'], details);
   const pins = readPins(body['pins'], details);
   const value: FollowInkRequest = { pins };
   const seed = body['seed'];

@@ -1,3 +1,4 @@
+import { refuseUnknownKeys } from './field-reader';
 import { FEWEST_PINS } from '../domain/registration-model';
 import { readInstant } from './parse-instant';
 import { type BenchStep, isFiniteNumber, MAX_PINS, type BenchWork, parseBenchWork, type Parsed, type WorkCheckReading, type WorkKnot, type WorkTimeMark } from './bench-work';
@@ -101,7 +102,7 @@ export function readPins(raw: unknown, details: Record<string, string>): PinInpu
 export function parseInkLineDraft(x: unknown): Parsed<HandInRequest> {
   if (typeof x !== 'object' || x === null || Array.isArray(x)) return { ok: false, details: { '': 'body must be an object' } };
   const body = x as Record<string, unknown>;
-  const parsed = parseBenchWork(body, { forHandIn: true });
+  const parsed = parseBenchWork(body, { forHandIn: true, otherKeys: ['draftVersion'] });
   const details = parsed.ok ? {} : { ...parsed.details };
   const version = body['draftVersion'];
   if (version !== undefined && !(Number.isInteger(version) && (version as number) >= 1)) details['draftVersion'] = 'draftVersion must be a whole number from 1';
@@ -119,6 +120,7 @@ export function parseDraftSave(x: unknown): Parsed<DraftSaveRequest> {
   if (typeof x !== 'object' || x === null || Array.isArray(x)) return { ok: false, details: { '': 'body must be an object' } };
   const body = x as Record<string, unknown>;
   const details: Record<string, string> = {};
+  refuseUnknownKeys(body, ['version', 'work'], details);
   const version = body['version'];
   if (version !== null && !(Number.isInteger(version) && (version as number) >= 1)) details['version'] = 'version must be null (a new draft) or a whole number from 1';
   const work = parseBenchWork(body['work']);

@@ -53,6 +53,7 @@ export function parseInstrumentInput(body: unknown): Parsed<InstrumentInput> {
   const reader = new FieldReader(body);
   const fields = readInstrumentFields(reader);
   if (!reader.has('serial')) reader.problem('serial', 'serial is required');
+  reader.refuseUnreadKeys();
   const value: InstrumentInput = {
     serial: fields.serial ?? '',
     maker: fields.maker ?? '',
@@ -71,6 +72,7 @@ export function parseInstrumentPatch(body: unknown): Parsed<InstrumentPatch> {
   const fields = readInstrumentFields(reader);
   const version = reader.integer('version', 1);
   if (version === undefined) reader.problem('version', 'version (the one you last read) is required');
+  reader.refuseUnreadKeys();
   return reader.isValid ? { ok: true, value: { ...fields, version: version as number } } : { ok: false, details: reader.details };
 }
 

@@ -45,6 +45,7 @@ export function parseChartFormInput(body: unknown): Parsed<ChartForm> {
   const reader = new FieldReader(body);
   const fields = readChartFormFields(reader);
   for (const key of REQUIRED) if (!reader.has(key)) reader.problem(key, `${key} is required`);
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   const form: ChartForm = { penArmRadiusMm: null, pivotPressure: null, arcSide: 1, ...fields } as ChartForm;
   const problems = checkChartForm(form);
@@ -57,5 +58,6 @@ export function parseChartFormPatch(body: unknown): Parsed<ChartFormPatch> {
   const fields = readChartFormFields(reader);
   const version = reader.integer('version', 1);
   if (version === undefined) reader.problem('version', 'version (the one you last read) is required');
+  reader.refuseUnreadKeys();
   return reader.isValid ? { ok: true, value: { ...fields, version: version as number } } : { ok: false, details: reader.details };
 }

@@ -1,4 +1,4 @@
-import { FieldReader, isId, MAX_LINE_LENGTH, normalizeInstant, type Parsed } from './field-reader';
+import { FieldReader, isId, refuseUnknownKeys, MAX_LINE_LENGTH, normalizeInstant, type Parsed } from './field-reader';
 import { normalizeTags } from './parse-scan-metadata';
 import { MAX_BULK_EDIT_SCANS, type ScanBulkEditInput } from './scans';
 
@@ -10,7 +10,10 @@ function readScanItem(item: unknown, index: number, problem: (key: string, messa
     return null;
   }
   const record = item as Record<string, unknown>;
-  let isValid = true;
+  const unknown: Record<string, string> = {};
+  refuseUnknownKeys(record, ['id', 'version', 'chartStart'], unknown, `${key}.`);
+  for (const [field, message] of Object.entries(unknown)) problem(field, message);
+  let isValid = Object.keys(unknown).length === 0;
   if (!isId(record['id'])) {
     problem(`${key}.id`, 'id must be a scan id');
     isValid = false;
@@ -35,6 +38,7 @@ function readScanItem(item: unknown, index: number, problem: (key: string, messa
 export function parseScanBulkEditInput(body: unknown): Parsed<ScanBulkEditInput> {
   const reader = new FieldReader(body);
   const record = typeof body === 'object' && body !== null ? (body as Record<string, unknown>) : {};
+  reader.refuseOtherKeys(['scans', 'set']);
   const scansValue = record['scans'];
   const scans: ScanBulkEditInput['scans'] = [];
   if (!Array.isArray(scansValue) || scansValue.length === 0) reader.problem('scans', 'scans must list at least one scan');
@@ -57,6 +61,7 @@ export function parseScanBulkEditInput(body: unknown): Parsed<ScanBulkEditInput>
   if (box !== undefined) value.set.box = box;
   const addTags = set.textList('addTags');
   if (addTags !== undefined) value.set.addTags = normalizeTags(addTags);
+  set.refuseUnreadKeys();
   for (const [key, message] of Object.entries(set.details)) reader.problem(key === 'body' ? 'set' : `set.${key}`, key === 'body' ? 'set must be an object' : message);
 
   const setsSomething = Object.keys(value.set).length > 0 && !(Object.keys(value.set).length === 1 && value.set.addTags?.length === 0);

@@ -35,6 +35,7 @@ export function parseScanMetadataInput(body: unknown): Parsed<ScanMetadataInput>
   const dpi = reader.nullableNumber('dpi', { isPositive: true, max: 10_000 });
   if (dpi !== undefined) value.dpi = dpi;
   if (value.chartOn && value.chartOff && value.chartOff < value.chartOn) reader.problem('chartOff', 'chartOff must not be before chartOn');
+  reader.refuseUnreadKeys();
   return reader.isValid ? { ok: true, value } : { ok: false, details: reader.details };
 }
 
@@ -45,6 +46,7 @@ export function parseScanStatusChange(body: unknown): Parsed<ScanStatusChange> {
   if (status === undefined) reader.problem('status', `status must be one of: ${SCAN_STATUSES.join(', ')}`);
   const reason = reader.text('reason', { maxLength: MAX_TEXT_LENGTH });
   if (status === 'withdrawn' && !reason) reader.problem('reason', 'a reason is required to withdraw a scan');
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return { ok: true, value: reason ? { status: status!, reason } : { status: status! } };
 }

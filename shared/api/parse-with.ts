@@ -7,8 +7,13 @@ export function parseWith<S extends z.ZodType>(schema: S, body: unknown): Parsed
   if (result.success) return { ok: true, value: result.data };
   const details: Record<string, string> = {};
   for (const issue of result.error.issues) {
+    if (issue.code === 'unrecognized_keys') {
+      // Each unknown field is named under its own path, as the other parsers name theirs.
+      for (const field of issue.keys) details[[...issue.path, field].join('.')] ??= `${field} is not a field of this request`;
+      continue;
+    }
     const key = issue.path.length > 0 ? issue.path.join('.') : 'body';
-    details[key] ??= issue.code === 'unrecognized_keys' ? `unknown field(s): ${issue.keys.join(', ')}` : issue.message;
+    details[key] ??= issue.message;
   }
   return { ok: false, details };
 }

@@ -185,6 +185,7 @@ export function parseInkLineVersionInput(body: unknown): Parsed<InkLineVersionIn
   const reader = new FieldReader(body);
   const version = reader.integer('version', 1);
   if (version === undefined) reader.problem('version', 'version must be the ink line version you read');
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return { ok: true, value: { version: version as number } };
 }
@@ -195,6 +196,7 @@ export function parseInkLineReturnInput(body: unknown): Parsed<InkLineReturnInpu
   if (version === undefined) reader.problem('version', 'version must be the ink line version you read');
   const note = reader.text('note', { isRequired: true, maxLength: MAX_REVIEW_NOTE_LENGTH });
   if (note === undefined) reader.problem('note', 'a note that says what to fix is required');
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return { ok: true, value: { version: version as number, note: note as string } };
 }

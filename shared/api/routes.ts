@@ -10,6 +10,10 @@ export const API = {
   instrument: (instrumentId: string) => `/api/instruments/${enc(instrumentId)}`,
   chartForms: '/api/chart-forms',
   chartForm: (chartFormId: string) => `/api/chart-forms/${enc(chartFormId)}`,
+  /** The change logs of the registers (archivists and admins). */
+  stationChangeLog: (stationId: string) => `/api/stations/${enc(stationId)}/change-log`,
+  instrumentChangeLog: (instrumentId: string) => `/api/instruments/${enc(instrumentId)}/change-log`,
+  chartFormChangeLog: (chartFormId: string) => `/api/chart-forms/${enc(chartFormId)}/change-log`,
   intakeBatches: '/api/intake/batches',
   intakeBatch: (batchId: string) => `/api/intake/batches/${enc(batchId)}`,
   intakeBatchFiles: (batchId: string) => `/api/intake/batches/${enc(batchId)}/files`,
@@ -35,6 +39,7 @@ export const API = {
   inkLineApprove: (inkLineId: string) => `/api/ink-lines/${enc(inkLineId)}/approve`,
   inkLineReturn: (inkLineId: string) => `/api/ink-lines/${enc(inkLineId)}/return`,
   inkLineRework: (inkLineId: string) => `/api/ink-lines/${enc(inkLineId)}/rework`,
+  inkLineChangeLog: (inkLineId: string) => `/api/ink-lines/${enc(inkLineId)}/change-log`,
   deskSummary: '/api/desk/summary',
   deskLines: '/api/desk/lines',
   deskNext: '/api/desk/next',

@@ -106,6 +106,7 @@ export function parseStationInput(body: unknown): Parsed<StationInput> {
   const reader = new FieldReader(body);
   const fields = readStationFields(reader);
   for (const key of ['code', 'name', 'timeZone'] as const) if (!reader.has(key)) reader.problem(key, `${key} is required`);
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return {
     ok: true,
@@ -130,6 +131,7 @@ export function parseStationPatch(body: unknown): Parsed<StationPatch> {
   const fields = readStationFields(reader);
   const version = reader.integer('version', 1);
   if (version === undefined) reader.problem('version', 'version (the one you last read) is required');
+  reader.refuseUnreadKeys();
   if (!reader.isValid) return { ok: false, details: reader.details };
   return { ok: true, value: { ...fields, version: version as number } };
 }

@@ -5,7 +5,7 @@ import request from 'supertest';
 import { API, IIIF } from '@shared/api/routes';
 import type { ScanDetail } from '@shared/api/scans';
 import { pgBossDerivativeJobs } from '../../server/jobs/job-boss';
-import { createPerson, type TestPerson } from '../helpers/factories';
+import { createChartForm, createPerson, createStation, type TestPerson } from '../helpers/factories';
 import { makePng } from '../helpers/images';
 import { makeMultiPageTiff, makeScannedPdf } from '../helpers/scan-files';
 import { clearStorage, createTestContext, listFiles, type TestContext, truncateTables, waitForDerivatives } from '../helpers/test-app';
@@ -62,6 +62,49 @@ describe('scan derivatives worker', () => {
     expect([thumbnail.width, thumbnail.height]).toEqual([256, 138]);
     const detail = (await request(context.app).get(API.scan(scanId)).set('Authorization', `Bearer ${archivist.token}`)).body as ScanDetail;
     expect(detail).toMatchObject({ derivativeState: 'ready', derivativeAttempts: 1, derivativeError: null });
+  });
+
+  it('when a file comes with station, chart form and chart start, then it stays received until its derivatives exist, then is ready to trace', async () => {
+    const station = await createStation(context.db);
+    const form = await createChartForm(context.db);
+
+    const response = await request(context.app)
+      .post(API.intakeBatchFiles(batchId))
+      .set('Authorization', `Bearer ${archivist.token}`)
+      .field('stationId', station.id)
+      .field('chartFormId', form.id)
+      .field('chartStart', '1931-03-02T08:00Z')
+      .attach('file', await makePng(300, 200), 'whole.png');
+    const scanId = response.body.scans[0].id as string;
+    const atUpload = response.body.scans[0] as ScanDetail;
+    await waitForDerivatives(context.db, [scanId]);
+
+    // The status route refuses ready to trace without derivatives (scan-status.ts); the upload keeps the same rule.
+    expect(atUpload).toMatchObject({ status: 'received', derivativeState: 'queued' });
+    const row = await scanRow(scanId);
+    expect([row.status, row.derivative_state]).toEqual(['ready_to_trace', 'ready']);
+    const log = await context.db.selectFrom('scan_audit').select(['action', 'person_id', 'changes']).where('scan_id', '=', scanId).orderBy('at').execute();
+    expect(log.map((entry) => entry.action)).toEqual(['upload', 'status']);
+    expect(log[1]).toMatchObject({ person_id: archivist.id, changes: { status: { before: 'received', after: 'ready_to_trace' } } });
+  });
+
+  it('when a received scan was moved by hand before its derivatives were made, then the worker leaves its status alone', async () => {
+    const station = await createStation(context.db);
+    const form = await createChartForm(context.db);
+    const response = await request(context.app)
+      .post(API.intakeBatchFiles(batchId))
+      .set('Authorization', `Bearer ${archivist.token}`)
+      .field('stationId', station.id)
+      .field('chartFormId', form.id)
+      .field('chartStart', '1931-03-02T08:00Z')
+      .attach('file', await makePng(310, 200), 'withdrawn-early.png');
+    const scanId = response.body.scans[0].id as string;
+
+    const withdrawn = await request(context.app).post(API.scanStatus(scanId)).set('Authorization', `Bearer ${archivist.token}`).send({ status: 'withdrawn', reason: 'duplicate' });
+    await waitForDerivatives(context.db, [scanId]);
+
+    expect(withdrawn.status).toBe(200);
+    expect((await scanRow(scanId)).status).toBe('withdrawn');
   });
 
   async function scanRow(scanId: string) {

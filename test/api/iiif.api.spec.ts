@@ -134,15 +134,39 @@ describe('IIIF Image 3.0 and Presentation 3.0', () => {
     expect([metadata.format, metadata.width, metadata.height, metadata.channels]).toEqual(['png', 70, 130, 1]);
   });
 
-  it('when the same rendered request comes twice, then the second answer is the cached file', async () => {
-    const first = await getImage(IIIF.image(scanId, '10,10,300,300', '150,'));
-    const second = await getImage(IIIF.image(scanId, '10,10,300,300', '150,'));
-
-    expect((first.body as Buffer).equals(second.body as Buffer)).toBe(true);
+  async function cachedFiles(): Promise<string[]> {
     const row = await context.db.selectFrom('scan').select('sha256').where('id', '=', scanId).executeTakeFirstOrThrow();
     const { listFiles } = await import('../helpers/test-app');
-    const rendered = await listFiles(context.storage.pathOf(`${context.storage.derivativesKey(row.sha256, 0)}/rendered`));
-    expect(rendered.filter((name) => name.startsWith('10,10,300,300'))).toEqual(['10,10,300,300_150,150_0_default.jpg']);
+    return listFiles(context.storage.pathOf(`cache/iiif/${row.sha256}-p0`));
+  }
+
+  it('when an advertised size the worker did not make comes twice, then it is rendered once and the second answer is the cached file', async () => {
+    const first = await getImage(IIIF.image(scanId, 'full', '650,350'));
+    const second = await getImage(IIIF.image(scanId, 'full', '650,'));
+
+    expect(first.status).toBe(200);
+    expect((first.body as Buffer).equals(second.body as Buffer)).toBe(true);
+    // 650 × 350 is one of the info.json's sizes (IIIF Image 3.0 §5.6, docs/references.md §7): kept, under its canonical name.
+    expect(await cachedFiles()).toContain('full_650,350_0_default.jpg');
+  });
+
+  it('when regions, sizes and rotations the info.json does not advertise are asked for, then each is rendered and none is kept on disk', async () => {
+    const before = await cachedFiles();
+    const urls = [
+      IIIF.image(scanId, '10,10,300,300', '150,'),
+      IIIF.image(scanId, '11,10,300,300', '150,'),
+      IIIF.image(scanId, 'full', '641,'),
+      IIIF.image(scanId, 'full', '650,350', '90'),
+      IIIF.image(scanId, '0,0,512,512', '512,512', '0', 'gray'),
+    ];
+
+    const responses = await Promise.all(urls.map((url) => getImage(url)));
+
+    expect(responses.map((response) => response.status)).toEqual([200, 200, 200, 200, 200]);
+    const [, , smaller] = responses;
+    expect((await sharp(smaller.body as Buffer).metadata()).width).toBe(641);
+    // Finding 3 of issue 13: a distinct request must not add a file, or any volunteer could fill the disk.
+    expect(await cachedFiles()).toEqual(before);
   });
 
   it.each([

@@ -87,14 +87,15 @@ describe('intake batches', () => {
     expect(jobs).toEqual([expect.objectContaining({ name: 'scan-derivatives', data: { scanId: row.id }, retry_limit: 3, retry_backoff: true })]);
   });
 
-  it('when a one-page file carries station, chart form and chart start, then it goes straight to ready to trace', async () => {
+  it('when a one-page file carries station, chart form and chart start, then it keeps them and waits for its derivatives as received', async () => {
     const station = await createStation(context.db);
     const form = await createChartForm(context.db);
 
     const response = await sendFile(await makeJpeg(), 'week.jpg', { stationId: station.id, chartFormId: form.id, chartStart: '1931-03-02T08:00Z' });
 
     expect(response.status).toBe(201);
-    expect(response.body.scans[0]).toMatchObject({ status: 'ready_to_trace', stationId: station.id, chartFormId: form.id, chartStart: '1931-03-02T08:00:00.000Z' });
+    // Ready to trace needs derivatives (scan-status.ts); the worker moves it (derivatives.api.spec.ts).
+    expect(response.body.scans[0]).toMatchObject({ status: 'received', stationId: station.id, chartFormId: form.id, chartStart: '1931-03-02T08:00:00.000Z' });
   });
 
   it('when a three-page TIFF arrives, then each page becomes a scan sharing the master, with the dpi from the file', async () => {

@@ -87,7 +87,7 @@ describe('lessons', () => {
 
       expect(response.status).toBe(400);
       expect(response.body.error.code).toBe('validation_failed');
-      expect(Object.keys(response.body.error.details)).toEqual(expect.arrayContaining(['title', 'stationId', 'body']));
+      expect(Object.keys(response.body.error.details)).toEqual(expect.arrayContaining(['title', 'stationId', 'colour']));
       const after = await context.db.selectFrom('lesson').select((eb) => eb.fn.countAll<string>().as('n')).executeTakeFirstOrThrow();
       expect(after.n).toBe(before.n);
     });

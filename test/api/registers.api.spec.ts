@@ -229,4 +229,62 @@ describe('registers: stations, instruments, chart forms', () => {
       expect(response.body.error.code).toBe('version_conflict');
     });
   });
+
+  describe('change log (issue 13 finding 7)', () => {
+    const changeLog = (url: string, person: TestPerson = archivist) => request(context.app).get(url).set('Authorization', `Bearer ${person.token}`);
+
+    it('when a station is created and edited, then its change log holds both, newest first, with before and after values and who made them', async () => {
+      const created = await asArchivist(request(context.app).post(API.stations)).send(NEW_STATION);
+
+      const edited = await asArchivist(request(context.app).patch(API.station(created.body.id))).send({ version: 1, name: 'Heron Law Hill', elevationM: 240, timeZone: 'Europe/London' });
+      const log = await changeLog(API.stationChangeLog(created.body.id));
+
+      expect(edited.status).toBe(200);
+      expect(log.status).toBe(200);
+      expect(log.body).toMatchObject({ total: 2, page: 0 });
+      const [edit, create] = log.body.items;
+      // The time zone was sent unchanged, so it is not in the entry.
+      expect(edit).toMatchObject({ action: 'edit', personName: `Test Person ${archivist.email.split('@')[0]}`, changes: { name: { before: 'Heron Law', after: 'Heron Law Hill' }, elevationM: { before: 230, after: 240 } } });
+      expect(Object.keys(edit.changes).sort()).toEqual(['elevationM', 'name']);
+      expect(create).toMatchObject({ action: 'create', changes: { code: { before: null, after: 'HLW' }, name: { before: null, after: 'Heron Law' } } });
+    });
+
+    it('when an edit is refused for a stale version, then no change log entry is written', async () => {
+      const station = await createStation(context.db);
+
+      const stale = await asArchivist(request(context.app).patch(API.station(station.id))).send({ version: 7, name: 'Never' });
+
+      expect(stale.status).toBe(409);
+      expect(await context.db.selectFrom('register_change').selectAll().where('record_id', '=', station.id).execute()).toEqual([]);
+    });
+
+    it('when an instrument and a chart form are edited, then each log has the fields changed, before and after', async () => {
+      const station = await createStation(context.db);
+      const instrument = await asArchivist(request(context.app).post(API.stationInstruments(station.id))).send({ serial: 'B-12', maker: 'Short & Mason' });
+      const form = await createChartForm(context.db);
+
+      await asArchivist(request(context.app).patch(API.instrument(instrument.body.id))).send({ version: 1, maker: 'Negretti & Zambra', installedOn: '1931-01-05' });
+      await asArchivist(request(context.app).patch(API.chartForm(form.id))).send({ version: 1, drumHours: 170 });
+      const instrumentLog = await changeLog(API.instrumentChangeLog(instrument.body.id));
+      const formLog = await changeLog(API.chartFormChangeLog(form.id));
+
+      expect(instrumentLog.body.items[0]).toMatchObject({ action: 'edit', changes: { maker: { before: 'Short & Mason', after: 'Negretti & Zambra' }, installedOn: { before: null, after: '1931-01-05' } } });
+      expect(instrumentLog.body.total).toBe(2);
+      expect(formLog.body.items).toEqual([expect.objectContaining({ action: 'edit', changes: { drumHours: { before: TEST_WEEKLY_FORM.drumHours, after: 170 } } })]);
+    });
+
+    it('when a volunteer or teacher asks for a change log, then it is 403; an unknown station is 404; an admin may read it', async () => {
+      const station = await createStation(context.db);
+      const volunteer = await createPerson(context.db, ['volunteer']);
+      const admin = await createPerson(context.db, ['admin']);
+
+      const byVolunteer = await changeLog(API.stationChangeLog(station.id), volunteer);
+      const byTeacher = await changeLog(API.stationChangeLog(station.id), teacher);
+      const unknown = await changeLog(API.stationChangeLog('00000000-0000-4000-8000-000000000000'));
+      const byAdmin = await changeLog(API.stationChangeLog(station.id), admin);
+
+      expect([byVolunteer.status, byTeacher.status, unknown.status, byAdmin.status]).toEqual([403, 403, 404, 200]);
+      expect(unknown.body.error.code).toBe('station_not_found');
+    });
+  });
 });

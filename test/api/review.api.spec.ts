@@ -155,6 +155,29 @@ describe('review of handed-in ink lines', () => {
     expect(decisions).toEqual(expect.arrayContaining([['approved', null], ['returned', expect.stringMatching(/^Pin 3 is on the 1010 line/)]]));
   });
 
+  it('when a reworked line is handed in again, then the change log keeps its earlier hand-in beside the new one (issue 13 finding 7)', async () => {
+    const first = await handIn(volunteer, syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 26));
+    const id = first.body.inkLineId as string;
+    await giveBack(archivist, id, 1, 'The knots after Tuesday noon stray off the pen line.');
+    await rework(volunteer, id, 2);
+    const before = await context.db.selectFrom('ink_line').select(['pin_set_id', 'handed_in_at']).where('id', '=', id).executeTakeFirstOrThrow();
+
+    const again = await handIn(volunteer, { ...syntheticDraft(TEST_WEEKLY_FORM, CHART_START, 2, 30), draftVersion: 3 });
+    const log = await as(archivist, request(context.app).get(API.inkLineChangeLog(id)));
+    const byVolunteer = await as(volunteer, request(context.app).get(API.inkLineChangeLog(id)));
+
+    expect(again.status).toBe(201);
+    expect(log.status).toBe(200);
+    expect(log.body.total).toBe(1);
+    const [entry] = log.body.items;
+    expect(entry).toMatchObject({ action: 'hand_in_again', personName: `Test Person ${volunteer.email.split('@')[0]}` });
+    expect(entry.changes.pinSetId.before).toBe(before.pin_set_id);
+    expect(entry.changes.pinSetId.after).not.toBe(before.pin_set_id);
+    expect(entry.changes.handedInAt.before).toBe((before.handed_in_at as Date).toISOString());
+    expect(entry.changes.seriesPointCount).toEqual({ before: first.body.seriesPointCount, after: again.body.seriesPointCount });
+    expect(byVolunteer.status).toBe(403);
+  });
+
   it('when two archivists decide on the same line at once, then one wins and the other gets version_conflict', async () => {
     const handedIn = await handIn(volunteer, syntheticDraft(TEST_WEEKLY_FORM, CHART_START));
 

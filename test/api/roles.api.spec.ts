@@ -12,6 +12,7 @@ import { createChartForm, createInkLineWithPoints, createPerson, createScanRow, 
 import { makePng } from '../helpers/images';
 import { createTestContext, type TestContext, truncateTables } from '../helpers/test-app';
 import { createTracedFrontScan } from '../helpers/lesson-fixtures';
+import { readStoredState, storedChanges } from '../helpers/stored-state';
 import { syntheticDraft } from '../helpers/trace';
 
 // The fixtures of every route are made once in beforeAll; on a shared, busy machine that takes longer than 5 s.
@@ -316,6 +317,30 @@ describe('who may call each route', () => {
       successStatus: 200,
       call: (token) => withToken(request(context.app).get(API.seriesCsv).query({ stationId, from: '2026-03-01', to: '2026-03-08' }), token),
     },
+    {
+      name: 'GET /api/stations/:stationId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.stationChangeLog(stationId)), token),
+    },
+    {
+      name: 'GET /api/instruments/:instrumentId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.instrumentChangeLog(instrumentId)), token),
+    },
+    {
+      name: 'GET /api/chart-forms/:chartFormId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: (token) => withToken(request(context.app).get(API.chartFormChangeLog(chartFormId)), token),
+    },
+    {
+      name: 'GET /api/ink-lines/:inkLineId/change-log',
+      roles: ['archivist', 'admin'],
+      successStatus: 200,
+      call: async (token) => withToken(request(context.app).get(API.inkLineChangeLog(await freshInkLine('handed_in'))), token),
+    },
     { name: 'GET /api/review', roles: ['archivist'], successStatus: 200, call: (token) => withToken(request(context.app).get(API.review), token) },
     {
       name: 'GET /api/ink-lines/:inkLineId/review',
@@ -555,7 +580,8 @@ describe('who may call each route', () => {
       await scansService.uploadScan(context, { tempPath: seriesTempPath, originalName: 'role-series.png' }, { stationId, chartFormId, chartStart: new Date(PERIOD_START) }, people.archivist.id)
     ).id;
     await createInkLineWithPoints(context.db, { scanId: seriesScanId, stationId, authorId: people.volunteer.id, status: 'approved', points: [] });
-    await context.db.updateTable('scan').set({ collection: 'ROLE', box: '1' }).where('id', '=', scanId).execute();
+    // No worker runs here: the scan is left as the worker leaves a whole upload, ready to trace.
+    await context.db.updateTable('scan').set({ collection: 'ROLE', box: '1', status: 'ready_to_trace' }).where('id', '=', scanId).execute();
     // A lesson of the teacher over a traced front, so the passage has a chart region; and a live share link.
     const lessonStationId = (await createStation(context.db)).id;
     await createTracedFrontScan(context, {
@@ -582,26 +608,35 @@ describe('who may call each route', () => {
     await context.close();
   });
 
-  it.each(routes.map((route) => [route.name]))('when %s is called without a token, then it answers 401 unauthenticated', async (name) => {
+  // A call's own arrangement (a fresh ink line on a scan of its own, a throwaway person) adds rows to these
+  // tables just before the request; any row already stored must still be there unchanged all the same.
+  const ARRANGED_TABLES = ['scan', 'ink_line', 'pin_set', 'series_change', 'person', 'person_role', 'chart_claim', 'invitation', 'lesson', 'lesson_share'];
+
+  it.each(routes.map((route) => [route.name]))('when %s is called without a token, then it answers 401 unauthenticated and changes nothing', async (name) => {
     const route = routeNamed(name);
     const before = await route.sideEffectCount?.();
+    const stored = await readStoredState(context.db);
 
     const response = await route.call(null);
 
     expect(response.status).toBe(401);
     expect(response.body.error.code).toBe('unauthenticated');
     expect(await route.sideEffectCount?.()).toBe(before);
+    expect(storedChanges(stored, await readStoredState(context.db), ARRANGED_TABLES)).toEqual([]);
   });
 
   it.each(refusedCases)('when %s is called by a %s, then it answers 403 forbidden and changes nothing', async (name, role) => {
     const route = routeNamed(name);
     const before = await route.sideEffectCount?.();
+    const stored = await readStoredState(context.db);
 
     const response = await route.call(people[role].token);
 
     expect(response.status).toBe(403);
     expect(response.body.error.code).toBe('forbidden');
     expect(await route.sideEffectCount?.()).toBe(before);
+    // Every stored row, not only the route's own table (issue 13 §4: each refused mutating route is checked).
+    expect(storedChanges(stored, await readStoredState(context.db), ARRANGED_TABLES)).toEqual([]);
   });
 
   it.each(allowedCases)('when %s is called by a %s, then it succeeds', async (name, role) => {

@@ -49,7 +49,7 @@ describe('scan upload', () => {
     await context.close();
   });
 
-  it('when a PNG is uploaded with station, chart form and chart start, then it is stored by hash and ready to trace', async () => {
+  it('when a PNG is uploaded with station, chart form and chart start, then it is stored by hash, received until its derivatives exist', async () => {
     const png = await makePng(80, 40);
     const sha256 = createHash('sha256').update(png).digest('hex');
 
@@ -61,7 +61,7 @@ describe('scan upload', () => {
       stationId,
       chartFormId,
       chartStart: '2026-03-02T00:00:00.000Z',
-      status: 'ready_to_trace',
+      status: 'received',
       originalName: 'kro-week-10.png',
       mediaType: 'image/png',
       sizeBytes: png.length,
@@ -73,7 +73,7 @@ describe('scan upload', () => {
     const row = await context.db.selectFrom('scan').selectAll().where('id', '=', scan.id).executeTakeFirstOrThrow();
     expect(row.storage_key).toBe(`masters/${sha256.slice(0, 2)}/${sha256}.png`);
     expect(row.uploaded_by).toBe(archivist.id);
-    expect(row.status).toBe('ready_to_trace');
+    expect(row.status).toBe('received');
     expect(await fs.readFile(context.storage.pathOf(row.storage_key))).toEqual(png);
     expect(await listFiles(path.join(context.storage.rootDir, 'tmp'))).toEqual([]);
   });
@@ -231,6 +231,8 @@ describe('scan upload', () => {
   it('when scans are listed with a status filter, then only scans in that state come back with their names', async () => {
     const ready = await upload(await makePng(), 'ready.png');
     const other = await upload(await makePng(), 'withdrawn.png');
+    // No worker runs here, so the states are set as the worker and an archivist would leave them.
+    await context.db.updateTable('scan').set({ status: 'ready_to_trace' }).where('id', '=', ready.body.id).execute();
     await context.db.updateTable('scan').set({ status: 'withdrawn' }).where('id', '=', other.body.id).execute();
 
     const response = await request(context.app)

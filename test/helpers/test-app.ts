@@ -98,6 +98,7 @@ export async function createTestContext(overrides: Partial<Config> = {}): Promis
 }
 
 const APP_TABLES: (keyof Database)[] = [
+  'register_change',
   'chart_claim',
   'trace_priority',
   'station_tracing',

@@ -16,6 +16,7 @@ import { ChartFormsApi } from '../../core/api/chart-forms-api';
 import { ApiError } from '../../core/http/api-error';
 import { ChartGridDrawing } from '../../shared/chart-grid-drawing/chart-grid-drawing';
 import { chartFormOf, MAX_PREVIEW_LINES, NEW_FORM_VALUES, previewLineCount, valuesOfChartForm } from './chart-form-values';
+import { RegisterChangeLog } from '../register-change-log/register-change-log';
 import { SavedNotice } from '../../shared/saved-notice/saved-notice';
 
 /**
@@ -24,7 +25,7 @@ import { SavedNotice } from '../../shared/saved-notice/saved-notice';
  */
 @Component({
   selector: 'isl-chart-form-page',
-  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ChartGridDrawing],
+  imports: [ReactiveFormsModule, RouterLink, MatButtonModule, MatFormFieldModule, MatIconModule, MatInputModule, MatSelectModule, ChartGridDrawing, RegisterChangeLog],
   templateUrl: './chart-form-page.html',
   styleUrl: './chart-form-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

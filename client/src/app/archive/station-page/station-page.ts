@@ -14,11 +14,12 @@ import { ApiError } from '../../core/http/api-error';
 import { InstrumentDialog, type InstrumentDialogData } from '../instrument-dialog/instrument-dialog';
 import { StationDialog, type StationDialogData } from '../station-dialog/station-dialog';
 import { TracingSettings } from '../tracing-settings/tracing-settings';
+import { RegisterChangeLog } from '../register-change-log/register-change-log';
 
 /** One station: its facts and history, its tracing setting, and the barographs it used. */
 @Component({
   selector: 'isl-station-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, MatTableModule, TracingSettings],
+  imports: [RouterLink, MatButtonModule, MatIconModule, MatTableModule, TracingSettings, RegisterChangeLog],
   templateUrl: './station-page.html',
   styleUrl: './station-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -30,7 +31,7 @@ export class StationPage {
   /** From the route parameter. */
   readonly stationId = input.required<string>();
 
-  private readonly reloads = signal(0);
+  protected readonly reloads = signal(0);
   protected readonly columns = ['serial', 'maker', 'installedOn', 'removedOn', 'notes', 'edit'];
   private readonly view = toSignal(
     combineLatest([toObservable(this.stationId), toObservable(this.reloads)]).pipe(
