@@ -39,7 +39,7 @@ export function deskRoutes({ db }: AppDeps, authenticate: RequestHandler): Route
 
   router.get('/desk/lines', authenticate, volunteer, async (req, res: Response<Page<DeskLine>>) => {
     const section = oneOf<DeskSection>(req.query['section'], DESK_SECTIONS, 'section', 'drafts');
-    res.json(await deskService.listDeskLines(db, signedInPerson(req.user).id, section, readPageQuery(req.query, [] as const)));
+    res.json(await deskService.listDeskLines(db, signedInPerson(req.user).id, section, readPageQuery(req.query, [] as const, ['section'])));
   });
 
   router.post('/desk/next', authenticate, volunteer, async (req, res: Response<NextChartResult>) => {
@@ -53,7 +53,7 @@ export function deskRoutes({ db }: AppDeps, authenticate: RequestHandler): Route
 
   router.get('/tracing/progress', authenticate, archivist, async (req, res: Response<Page<TracingProgressRow>>) => {
     const group = oneOf<ProgressGroup>(req.query['groupBy'], PROGRESS_GROUPS, 'groupBy', 'station');
-    res.json(await deskService.listProgress(db, group, readPageQuery(req.query, [] as const)));
+    res.json(await deskService.listProgress(db, group, readPageQuery(req.query, [] as const, ['groupBy'])));
   });
 
   router.get('/tracing/priorities', authenticate, archivist, async (req, res: Response<Page<TracePriority>>) => {

@@ -62,7 +62,7 @@ export function myInkLinesRoutes({ db }: AppDeps): Router {
   const router = Router();
   router.get('/mine', requireRoles('volunteer'), async (req, res: Response<Page<MyInkLineSummary>>) => {
     const query = req.query as Record<string, unknown>;
-    const { page, pageSize } = readPageQuery(query, []);
+    const { page, pageSize } = readPageQuery(query, [], ['status']);
     const statuses = readStatuses(query['status']);
     res.json(await inkLinesService.listMyInkLines(db, signedInPerson(req.user).id, { statuses, page, pageSize }));
   });

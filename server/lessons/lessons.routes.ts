@@ -18,7 +18,7 @@ import type { AppDeps } from '../app-deps';
 import { requireRoles, signedInPerson } from '../auth/require-roles';
 import { AppError, HTTP, validationFailed } from '../errors/app-error';
 import { valueOrThrow } from '../http/parse-body';
-import { isUuid, readPageQuery } from '../http/parse-query';
+import { isUuid, readPageQuery, refuseUnknownQuery } from '../http/parse-query';
 import * as iiifService from '../iiif/iiif.service';
 import type { ImageRendering } from '../iiif/iiif.service';
 import { sendImage } from '../iiif/image-rendering';
@@ -64,6 +64,7 @@ function readScope(query: Record<string, unknown>): LessonScope {
 }
 
 function readVersion(query: Record<string, unknown>): number {
+  refuseUnknownQuery(query, ['version']);
   const version = Number(query['version']);
   if (typeof query['version'] !== 'string' || !Number.isInteger(version) || version < 1) {
     throw validationFailed({ version: 'version must be the whole number read with the lesson' });
@@ -90,7 +91,7 @@ export function lessonsRoutes({ db, storage, config }: AppDeps, rendering: Image
   router.use(requireRoles('teacher', 'admin'));
 
   router.get('/', async (req, res: Response<Page<LessonSummary>>) => {
-    res.json(await lessonsService.listLessons(db, caller(req), readScope(req.query), readPageQuery(req.query, LESSON_SORT_KEYS)));
+    res.json(await lessonsService.listLessons(db, caller(req), readScope(req.query), readPageQuery(req.query, LESSON_SORT_KEYS, ['scope'])));
   });
   router.post('/', async (req, res: Response<LessonDetail>) => {
     const input = valueOrThrow(parseLessonCreate(req.body), 'The lesson has invalid fields.');

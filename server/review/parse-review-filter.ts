@@ -7,6 +7,9 @@ import type { ReviewListFilter } from './review.repository';
 const MS_PER_DAY = 86_400_000;
 
 /** The review list's filters from the query: station, volunteer, period (dates or instants; a date `to` takes its whole day) and state. */
+/** The review list's filter parameters, beside its paging. */
+export const REVIEW_FILTER_PARAMETERS = ['state', 'stationId', 'authorId', 'from', 'to'] as const;
+
 export function parseReviewFilter(query: Record<string, unknown>): ReviewListFilter {
   const details: Record<string, string> = {};
   const filter: ReviewListFilter = { state: 'handed_in' };

@@ -8,6 +8,7 @@ import { requireRoles, signedInPerson } from '../auth/require-roles';
 import { AppError, HTTP } from '../errors/app-error';
 import { valueOrThrow } from '../http/parse-body';
 import { isUuid, readPageQuery } from '../http/parse-query';
+import { REVIEW_FILTER_PARAMETERS } from './parse-review-filter';
 import { parseReviewFilter } from './parse-review-filter';
 import * as reviewService from './review.service';
 
@@ -23,7 +24,7 @@ export function reviewRoutes({ db }: AppDeps, authenticate: RequestHandler): Rou
 
   router.get('/review', authenticate, archivist, async (req, res: Response<Page<ReviewRow>>) => {
     // Oldest first, always: the queue is fair to whoever handed in first.
-    res.json(await reviewService.listForReview(db, parseReviewFilter(req.query), readPageQuery(req.query, [] as const)));
+    res.json(await reviewService.listForReview(db, parseReviewFilter(req.query), readPageQuery(req.query, [] as const, REVIEW_FILTER_PARAMETERS)));
   });
 
   router.get('/ink-lines/:inkLineId/review', authenticate, archivist, async (req, res: Response<ReviewDetail>) => {

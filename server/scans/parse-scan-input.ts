@@ -79,6 +79,9 @@ function readFilterInstant(query: Record<string, unknown>, key: string, details:
 }
 
 /** The catalogue filters of GET /api/scans and /api/scans/status-counts. */
+/** The catalogue's filter parameters (GET /api/scans and its status counts). */
+export const SCAN_FILTER_PARAMETERS = ['status', 'stationId', 'instrumentId', 'chartFormId', 'batchId', 'from', 'to', 'tag', 'q'] as const;
+
 export function parseScanFilter(query: Record<string, unknown>): ScanFilter {
   const details: Record<string, string> = {};
   const filter: ScanFilter = {};

@@ -7,8 +7,8 @@ import type { AppDeps } from '../app-deps';
 import { requireRoles, signedInPerson } from '../auth/require-roles';
 import { HTTP } from '../errors/app-error';
 import { valueOrThrow } from '../http/parse-body';
-import { readPageQuery } from '../http/parse-query';
-import { parseScanFilter, parseScanId, parseUploadFields } from './parse-scan-input';
+import { readPageQuery, refuseUnknownQuery } from '../http/parse-query';
+import { parseScanFilter, parseScanId, parseUploadFields, SCAN_FILTER_PARAMETERS } from './parse-scan-input';
 import { receiveScanFile, uploadedFile } from './scan-upload';
 import { bulkEditScans } from './scan-bulk-edit.service';
 import * as scansService from './scans.service';
@@ -27,10 +27,11 @@ export function scansRoutes(deps: AppDeps): Router {
 
   router.get('/', mayRead, async (req, res: Response<Page<ScanSummary>>) => {
     const filter = { ...parseScanFilter(req.query), hideWithdrawn: !seesWithdrawn(req) };
-    res.json(await scansService.listScans(db, filter, readPageQuery(req.query, SCAN_SORT_KEYS)));
+    res.json(await scansService.listScans(db, filter, readPageQuery(req.query, SCAN_SORT_KEYS, SCAN_FILTER_PARAMETERS)));
   });
 
   router.get('/status-counts', mayEdit, async (req, res: Response<ScanStatusCounts>) => {
+    refuseUnknownQuery(req.query, SCAN_FILTER_PARAMETERS);
     res.json(await scansService.countScansByStatus(db, parseScanFilter(req.query)));
   });
 

@@ -1,5 +1,5 @@
 import { validationFailed } from '../errors/app-error';
-import { isUuid } from '../http/parse-query';
+import { isUuid, refuseUnknownQuery } from '../http/parse-query';
 import { parseUtcDateMs, readInstant } from '@shared/api/parse-instant';
 import type { SeriesRange } from './series.repository';
 
@@ -10,6 +10,7 @@ const MS_PER_DAY = 86_400_000;
  * instants as readInstant takes them; a date `to` includes its whole day, so from=to=2026-03-02 is that one day.
  */
 export function parseSeriesRange(query: Record<string, unknown>): SeriesRange {
+  refuseUnknownQuery(query, ['stationId', 'from', 'to']);
   const details: Record<string, string> = {};
   const stationId = query['stationId'];
   if (!isUuid(stationId)) details['stationId'] = 'stationId must be a station id';

@@ -136,6 +136,18 @@ describe('unknown fields and query parameters on every route', () => {
     expect(response.body.error.details).toHaveProperty(['x[$ne]']);
   });
 
+  it.each([...queryRoutes, ['point chart', () => `${API.seriesPointChart}?stationId=${ids.station}&time=2026-03-01T00:00:00Z`] as [string, () => string]])(
+    'when the %s request gets a parameter it does not take, then it answers 400 naming it instead of ignoring it',
+    async (_name, url) => {
+      const separator = url().includes('?') ? '&' : '?';
+
+      const response = await request(context.app).get(`${url()}${separator}colour=red`).set('Authorization', `Bearer ${caller.token}`);
+
+      expect(response.status).toBe(400);
+      expect(response.body.error.details).toHaveProperty('colour');
+    },
+  );
+
   it.each(queryRoutes)('when the %s list gets a parameter twice, then it answers 400 naming it', async (_name, url) => {
     const separator = url().includes('?') ? '&' : '?';
 
