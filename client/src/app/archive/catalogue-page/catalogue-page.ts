@@ -1,13 +1,14 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
-import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { ChangeDetectionStrategy, Component, computed, DestroyRef, inject, signal } from '@angular/core';
+import { takeUntilDestroyed, toObservable, toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { ActivatedRoute, Router, RouterLink } from '@angular/router';
-import type { PageQuery } from '@shared/api/paging';
-import type { ScanSortKey, ScanStatus, ScanStatusCounts } from '@shared/api/scans';
+import { MAX_PAGE_SIZE, type PageQuery } from '@shared/api/paging';
+import type { ScanSortKey, ScanStatus, ScanStatusCounts, ScanSummary } from '@shared/api/scans';
 import { catchError, map, of, switchMap } from 'rxjs';
 
 import { ScansApi } from '../../core/api/scans-api';
+import { BulkEditPanel } from '../bulk-edit-panel/bulk-edit-panel';
 import { Catalogue } from '../catalogue/catalogue';
 import { CatalogueFilterBar } from '../catalogue-filter-bar/catalogue-filter-bar';
 import { StatusCounts } from '../status-counts/status-counts';
@@ -19,7 +20,7 @@ import { type CatalogueFilters, type CatalogueState, catalogueStateFromParams, p
  */
 @Component({
   selector: 'isl-catalogue-page',
-  imports: [RouterLink, MatButtonModule, MatIconModule, Catalogue, CatalogueFilterBar, StatusCounts],
+  imports: [RouterLink, MatButtonModule, MatIconModule, BulkEditPanel, Catalogue, CatalogueFilterBar, StatusCounts],
   template: `
     <section class="isl-page">
       <header class="isl-form-row header">
@@ -30,13 +31,20 @@ import { type CatalogueFilters, type CatalogueState, catalogueStateFromParams, p
             one intake batch
             <button mat-icon-button type="button" aria-label="Show every batch" (click)="changeFilters({ batchId: null })"><mat-icon>close</mat-icon></button>
           </span>
+          <button mat-button type="button" (click)="selectWholeBatch(batchId)" data-testid="catalogue-select-batch"><mat-icon>select_all</mat-icon> Select the whole batch</button>
         }
         <span class="spacer"></span>
         <a mat-flat-button routerLink="/archive/intake" data-testid="catalogue-intake-link"><mat-icon>move_to_inbox</mat-icon> Intake</a>
       </header>
       <isl-status-counts [counts]="counts()" [chosen]="state().filters.status" (statusChosen)="chooseStatus($event)" />
       <div class="filters"><isl-catalogue-filter-bar [filters]="state().filters" (filtersChange)="replaceFilters($event)" /></div>
-      <isl-catalogue #catalogue [filters]="scanFilters()" [query]="state().query" (queryChange)="changeQuery($event)" />
+      @if (selected().length > 0) {
+        <isl-bulk-edit-panel [scans]="selected()" (applied)="afterBulkEdit(catalogue)" (closed)="selected.set([])" />
+      }
+      @if (selectionFailure(); as failure) {
+        <p class="isl-inline-error" role="alert">{{ failure }}</p>
+      }
+      <isl-catalogue #catalogue [filters]="scanFilters()" [query]="state().query" (queryChange)="changeQuery($event)" [(selected)]="selected" />
     </section>
   `,
   styles: `
@@ -52,6 +60,7 @@ export class CataloguePage {
   private readonly router = inject(Router);
   private readonly route = inject(ActivatedRoute);
   private readonly scansApi = inject(ScansApi);
+  private readonly destroyRef = inject(DestroyRef);
 
   protected readonly state = toSignal(this.route.queryParamMap.pipe(map(catalogueStateFromParams)), {
     initialValue: catalogueStateFromParams(this.route.snapshot.queryParamMap),
@@ -64,6 +73,30 @@ export class CataloguePage {
     ),
     { initialValue: null },
   );
+
+  /** Scans ticked for a bulk edit. */
+  protected readonly selected = signal<readonly ScanSummary[]>([]);
+  protected readonly selectionFailure = signal<string | null>(null);
+
+  /** Ticks every scan of the intake batch, not only the page on screen (up to one full page of the API). */
+  protected selectWholeBatch(batchId: string): void {
+    this.selectionFailure.set(null);
+    this.scansApi
+      .list({ page: 0, pageSize: MAX_PAGE_SIZE, sort: 'originalName', direction: 'asc' }, { batchId })
+      .pipe(takeUntilDestroyed(this.destroyRef))
+      .subscribe({
+        next: (page) => {
+          this.selected.set(page.items);
+          if (page.total > page.items.length) this.selectionFailure.set(`The first ${page.items.length} of the batch's ${page.total} scans are selected; apply, then select the rest.`);
+        },
+        error: () => this.selectionFailure.set('The batch could not be loaded to select it.'),
+      });
+  }
+
+  protected afterBulkEdit(catalogue: Catalogue): void {
+    this.selected.set([]);
+    catalogue.reload();
+  }
 
   protected chooseStatus(status: ScanStatus | null): void {
     this.changeFilters({ status });

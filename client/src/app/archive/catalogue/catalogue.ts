@@ -1,6 +1,7 @@
 import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, effect, inject, input, model, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
+import { MatCheckboxModule } from '@angular/material/checkbox';
 import { MatIconModule } from '@angular/material/icon';
 import { MatPaginatorModule, PageEvent } from '@angular/material/paginator';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -31,7 +32,7 @@ const DERIVATIVE_ICONS: Readonly<Record<string, string>> = { queued: 'schedule',
 /** Scans of the archive in a table, paged, sorted and filtered by the server. */
 @Component({
   selector: 'isl-catalogue',
-  imports: [DatePipe, RouterLink, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatIconModule, MatTooltipModule, ScanStatusChip, ScanThumbnail],
+  imports: [DatePipe, RouterLink, MatCheckboxModule, MatTableModule, MatSortModule, MatPaginatorModule, MatProgressBarModule, MatIconModule, MatTooltipModule, ScanStatusChip, ScanThumbnail],
   templateUrl: './catalogue.html',
   styleUrl: './catalogue.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -43,7 +44,10 @@ export class Catalogue {
   /** Page and sort; two-way so the page can keep them in the address. */
   readonly query = model<PageQuery<ScanSortKey>>({ page: 0, pageSize: DEFAULT_PAGE_SIZE, sort: 'uploadedAt', direction: 'desc' });
 
-  protected readonly columns = ['thumbnail', 'chartStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
+  /** Rows ticked for a bulk edit; kept across pages and sorts until the page clears them. */
+  readonly selected = model<readonly ScanSummary[]>([]);
+
+  protected readonly columns = ['select', 'thumbnail', 'chartStart', 'stationName', 'chartFormName', 'originalName', 'tags', 'status', 'derivativeState', 'inkLineCount', 'uploadedAt'];
   protected readonly derivativeIcons = DERIVATIVE_ICONS;
   /** Bumped to reload; `quiet` reloads keep the progress bar still (they only refresh states). */
   private readonly reloads = signal({ count: 0, quiet: false });
@@ -75,6 +79,24 @@ export class Catalogue {
       const timer = setTimeout(() => this.reloads.update((r) => ({ count: r.count + 1, quiet: true })), CATALOGUE_POLL_MS);
       onCleanup(() => clearTimeout(timer));
     });
+  }
+
+  protected readonly selectedIds = computed(() => new Set(this.selected().map((scan) => scan.id)));
+  protected readonly isWholePageSelected = computed(() => this.rows().length > 0 && this.rows().every((row) => this.selectedIds().has(row.id)));
+  protected readonly isPartPageSelected = computed(() => !this.isWholePageSelected() && this.rows().some((row) => this.selectedIds().has(row.id)));
+
+  protected toggleRow(scan: ScanSummary): void {
+    this.selected.update((selected) => (selected.some((one) => one.id === scan.id) ? selected.filter((one) => one.id !== scan.id) : [...selected, scan]));
+  }
+
+  protected toggleWholePage(): void {
+    const rows = this.rows();
+    if (this.isWholePageSelected()) {
+      const onPage = new Set(rows.map((row) => row.id));
+      this.selected.update((selected) => selected.filter((one) => !onPage.has(one.id)));
+    } else {
+      this.selected.update((selected) => [...selected, ...rows.filter((row) => !this.selectedIds().has(row.id))]);
+    }
   }
 
   reload(): void {

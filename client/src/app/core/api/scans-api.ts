@@ -4,6 +4,8 @@ import type { Observable } from 'rxjs';
 import type { Page, PageQuery } from '@shared/api/paging';
 import { API, IIIF } from '@shared/api/routes';
 import type {
+  ScanBulkEditInput,
+  ScanBulkEditResult,
   ScanChangeLogEntry,
   ScanDetail,
   ScanFilters,
@@ -50,6 +52,11 @@ export class ScansApi {
   /** Saves catalogue fields; a stale `version` answers 409 version_conflict. */
   update(scanId: string, input: ScanMetadataInput): Observable<ScanDetail> {
     return this.http.patch<ScanDetail>(API.scan(scanId), input);
+  }
+
+  /** Sets the same fields on many scans at once; any stale version refuses the whole edit (409). */
+  bulkEdit(input: ScanBulkEditInput): Observable<ScanBulkEditResult> {
+    return this.http.post<ScanBulkEditResult>(API.scanBulkEdit, input);
   }
 
   changeStatus(scanId: string, change: ScanStatusChange): Observable<ScanDetail> {
