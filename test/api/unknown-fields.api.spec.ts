@@ -1,5 +1,5 @@
 import request from 'supertest';
-import { API } from '@shared/api/routes';
+import { API, IIIF } from '@shared/api/routes';
 import { ROLES } from '@shared/api/roles';
 import { makePng } from '../helpers/images';
 import { createChartForm, createPerson, createScanRow, createStation, type TestPerson } from '../helpers/factories';
@@ -147,6 +147,21 @@ describe('unknown fields and query parameters on every route', () => {
       expect(response.body.error.details).toHaveProperty('colour');
     },
   );
+
+  const noQueryRoutes: [string, () => string][] = [
+    ['scan', () => API.scan(ids.scan)],
+    ['station', () => API.station(ids.station)],
+    ['desk summary', () => API.deskSummary],
+    ['station coverage', () => API.stationCoverage(ids.station)],
+    ['IIIF info.json', () => IIIF.info(ids.scan)],
+  ];
+
+  it.each(noQueryRoutes)('when the %s request, which takes no query, gets a parameter, then it answers 400 naming it', async (_name, url) => {
+    const response = await request(context.app).get(`${url()}?colour=red`).set('Authorization', `Bearer ${caller.token}`);
+
+    expect(response.status).toBe(400);
+    expect(response.body.error.details).toEqual({ colour: 'colour is not a parameter of this request; it takes none' });
+  });
 
   it.each(queryRoutes)('when the %s list gets a parameter twice, then it answers 400 naming it', async (_name, url) => {
     const separator = url().includes('?') ? '&' : '?';
