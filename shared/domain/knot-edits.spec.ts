@@ -1,24 +1,16 @@
 import { EMPTY_BENCH_WORK, type BenchWork, type WorkKnot } from '../api/bench-work';
 import { bridgeStretch, liftStretch, nearestKnotIndex } from './knot-edits';
 import { digitizeWork } from './pipeline/digitize-work';
-import { readingToPixel, type RegistrationFit } from './registration';
+import { readingToPixel } from './registration';
 import { TEST_WEEKLY_FORM } from './testing/test-weekly-form';
+import { TEST_WEEKLY_PLACEMENT } from './testing/test-weekly-placement';
 
 // An invented chart, exact by construction: the test form at 150 dpi, a pressure of 1000 + 0.5 hPa per hour.
 const form = TEST_WEEKLY_FORM;
 const HOUR_MS = 3_600_000;
 const CHART_START = '2026-03-02T00:00:00.000Z';
 const CHART_START_MS = Date.parse(CHART_START);
-const PX_PER_MM = 150 / 25.4;
-const placement: RegistrationFit = {
-  model: 'affine',
-  paperToPixel: [PX_PER_MM, 0, 120, 0, -PX_PER_MM, 40 + 100 * form.mmPerUnit * PX_PER_MM, 0, 0, 1],
-  penArmRadiusMm: form.penArmRadiusMm,
-  isRadiusFitted: false,
-  residuals: [],
-  rmsHpa: 0,
-  rmsMinutes: 0,
-};
+const placement = TEST_WEEKLY_PLACEMENT;
 const pixelAt = (hours: number, pressure: number) => readingToPixel(form, placement, { hours, pressure });
 const pin = (hours: number, pressure: number) => ({ ...pixelAt(hours, pressure), time: new Date(CHART_START_MS + hours * HOUR_MS).toISOString(), pressure });
 /** Hand-placed knots every 10 minutes from 2 h to 30 h. */

@@ -1,5 +1,6 @@
-import { readingToPixel, type RegistrationFit } from '../registration';
+import { readingToPixel } from '../registration';
 import { TEST_WEEKLY_FORM } from '../testing/test-weekly-form';
+import { TEST_WEEKLY_PLACEMENT } from '../testing/test-weekly-placement';
 import { digitizeLine, type PipelineInput, type PipelineLine } from './digitize-line';
 
 // An invented chart with known errors (exact by construction, no published source needed): the drum clock runs
@@ -8,16 +9,7 @@ import { digitizeLine, type PipelineInput, type PipelineLine } from './digitize-
 const form = TEST_WEEKLY_FORM;
 const HOUR_MS = 3_600_000;
 const CHART_START_MS = Date.parse('2026-03-02T00:00:00Z');
-const PX_PER_MM = 150 / 25.4;
-const placement: RegistrationFit = {
-  model: 'affine',
-  paperToPixel: [PX_PER_MM, 0, 120, 0, -PX_PER_MM, 40 + 100 * form.mmPerUnit * PX_PER_MM, 0, 0, 1],
-  penArmRadiusMm: form.penArmRadiusMm,
-  isRadiusFitted: false,
-  residuals: [],
-  rmsHpa: 0,
-  rmsMinutes: 0,
-};
+const placement = TEST_WEEKLY_PLACEMENT;
 const CLOCK_SLOW_MINUTES = 20;
 const CLOCK_LOSS_MINUTES_PER_DAY = 4;
 const INSTRUMENT_HIGH_HPA = 1.3;

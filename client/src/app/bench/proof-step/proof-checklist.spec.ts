@@ -1,23 +1,15 @@
 import { type BenchWork, EMPTY_BENCH_WORK } from '@shared/api/bench-work';
 import { digitizeWork } from '@shared/domain/pipeline/digitize-work';
-import { readingToPixel, type RegistrationFit } from '@shared/domain/registration';
+import { readingToPixel } from '@shared/domain/registration';
 import { TEST_WEEKLY_FORM } from '@shared/domain/testing/test-weekly-form';
+import { TEST_WEEKLY_PLACEMENT } from '@shared/domain/testing/test-weekly-placement';
 
 import { clockInWords, instrumentInWords, proofChecklist } from './proof-checklist';
 
 // An invented chart (exact by construction): a plain 150 dpi placement, a slow 72-hour swing about 1000 hPa.
 const form = TEST_WEEKLY_FORM;
 const START_MS = Date.parse('2026-03-02T00:00:00Z');
-const PX_PER_MM = 150 / 25.4;
-const placement: RegistrationFit = {
-  model: 'affine',
-  paperToPixel: [PX_PER_MM, 0, 120, 0, -PX_PER_MM, 40 + 100 * form.mmPerUnit * PX_PER_MM, 0, 0, 1],
-  penArmRadiusMm: form.penArmRadiusMm,
-  isRadiusFitted: false,
-  residuals: [],
-  rmsHpa: 0,
-  rmsMinutes: 0,
-};
+const placement = TEST_WEEKLY_PLACEMENT;
 const pressureAt = (hours: number) => 1000 + 12 * Math.sin((2 * Math.PI * hours) / 72);
 const iso = (hours: number) => new Date(START_MS + hours * 3_600_000).toISOString();
 
