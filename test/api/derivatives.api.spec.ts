@@ -64,17 +64,21 @@ describe('scan derivatives worker', () => {
     expect(detail).toMatchObject({ derivativeState: 'ready', derivativeAttempts: 1, derivativeError: null });
   });
 
-  it('when a file comes with station, chart form and chart start, then it stays received until its derivatives exist, then is ready to trace', async () => {
+  /** An intake upload with station, chart form and chart start: one that may go to ready to trace by itself. */
+  async function uploadWithFullMetadata(file: Buffer, name: string) {
     const station = await createStation(context.db);
     const form = await createChartForm(context.db);
-
-    const response = await request(context.app)
+    return request(context.app)
       .post(API.intakeBatchFiles(batchId))
       .set('Authorization', `Bearer ${archivist.token}`)
       .field('stationId', station.id)
       .field('chartFormId', form.id)
       .field('chartStart', '1931-03-02T08:00Z')
-      .attach('file', await makePng(300, 200), 'whole.png');
+      .attach('file', file, name);
+  }
+
+  it('when a file comes with station, chart form and chart start, then it stays received until its derivatives exist, then is ready to trace', async () => {
+    const response = await uploadWithFullMetadata(await makePng(300, 200), 'whole.png');
     const scanId = response.body.scans[0].id as string;
     const atUpload = response.body.scans[0] as ScanDetail;
     await waitForDerivatives(context.db, [scanId]);
@@ -89,15 +93,7 @@ describe('scan derivatives worker', () => {
   });
 
   it('when a received scan was moved by hand before its derivatives were made, then the worker leaves its status alone', async () => {
-    const station = await createStation(context.db);
-    const form = await createChartForm(context.db);
-    const response = await request(context.app)
-      .post(API.intakeBatchFiles(batchId))
-      .set('Authorization', `Bearer ${archivist.token}`)
-      .field('stationId', station.id)
-      .field('chartFormId', form.id)
-      .field('chartStart', '1931-03-02T08:00Z')
-      .attach('file', await makePng(310, 200), 'withdrawn-early.png');
+    const response = await uploadWithFullMetadata(await makePng(310, 200), 'withdrawn-early.png');
     const scanId = response.body.scans[0].id as string;
 
     const withdrawn = await request(context.app).post(API.scanStatus(scanId)).set('Authorization', `Bearer ${archivist.token}`).send({ status: 'withdrawn', reason: 'duplicate' });
